@@ -1,0 +1,8 @@
+import type { Command } from 'commander';
+import type { CliIo } from '../io.js';
+
+/** Each subcommand lives in its own file and registers itself here. */
+export function registerCommands(program: Command, io: CliIo): void {
+  void program;
+  void io;
+}

@@ -1,0 +1,6 @@
+/**
+ * talus public library API. SI units throughout (m, kg/m^3, m/s^2) unless a name says otherwise.
+ */
+export { G, EARTH_RADIUS_M, CAP_RADIUS_M, DEFAULT_DENSITY_KG_M3 } from './constants.js';
+export { MGAL, FOOT_M, US_SURVEY_FOOT_M, metresPer } from './units.js';
+export { InputError } from './errors.js';
