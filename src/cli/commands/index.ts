@@ -1,8 +1,10 @@
 import type { Command } from 'commander';
 import type { CliIo } from '../io.js';
+import { registerDensityCommand } from './density.js';
 
 /** Each subcommand lives in its own file and registers itself here. */
 export function registerCommands(program: Command, io: CliIo): void {
   void program;
   void io;
+  registerDensityCommand(program, io);
 }
