@@ -193,12 +193,14 @@ describe('prismGzFactor: the atan2 trap (station inside the footprint)', () => {
     return -b;
   }
 
-  it('mass above the station: closed form matches quadrature; atan2 would be off by ~2π dz', () => {
+  it('mass above the station: closed form matches quadrature; atan2 would be off by 4π dz', () => {
     const box = [-5, 7, -3, 9, -10, -4] as const;
     const ref = reference(...box);
     assertClose(prismGzFactor(...box), ref, { rel: 1e-10 });
-    // The trap is real for this geometry: atan2 misses by a multiple of π times the thickness.
-    expect(Math.abs(atan2Variant(...box) - ref)).toBeGreaterThan(Math.PI * 6);
+    // The trap is real for this geometry: with z < 0 each of the 4 corner angles of a level
+    // gains π sign(x y), which the corner signs add up to 4π per level, so the variant is off
+    // by 4π (z2 - z1) = 4π * 6 m (derived here; rounding only, 1e-9 relative).
+    assertClose(atan2Variant(...box) - ref, 4 * Math.PI * 6, { rel: 1e-9 });
   });
 
   it('mass below the station: closed form matches quadrature', () => {
