@@ -4,3 +4,17 @@
 export { G, EARTH_RADIUS_M, CAP_RADIUS_M, DEFAULT_DENSITY_KG_M3 } from './constants.js';
 export { MGAL, FOOT_M, US_SURVEY_FOOT_M, metresPer } from './units.js';
 export { InputError } from './errors.js';
+export {
+  normalGravity,
+  isNormalFormula,
+  NORMAL_FORMULAS,
+  normalGravityAtHeight,
+  normalGravityEllipsoidal,
+  atmosphericCorrection,
+  freeAirCorrection,
+  bouguerSlab,
+  bouguerCap,
+  bullardB,
+  anomalies,
+} from './reduction/index.js';
+export type { NormalFormula, NormalFormulaInfo, FreeAirOrder, AnomalyTerms, Anomalies } from './reduction/index.js';

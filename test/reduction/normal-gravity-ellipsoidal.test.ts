@@ -45,4 +45,16 @@ describe('exact GRS80 normal gravity in ellipsoidal-harmonic coordinates', () =>
     assertClose(grad(0), 0.30878, { abs: 1e-5 }, 'equator');
     assertClose(grad(90), 0.30834, { abs: 1e-5 }, 'pole');
   });
+
+  it('spherical approximation 2g/R = 0.30668 mGal/m falls short of the exact gradient by f + m', () => {
+    // physics.md section 3: dg/dr = -2g/R with g = 978031.85 mGal, R = 6378137 m gives 0.30668
+    // mGal/m (common practice, 5 decimals: +-5e-6). The ellipsoidal gradient at the equator
+    // is 2 gamma_e/a (1 + f + m) to first order [HeiskanenMoritz1967] eq. 2-124; the second
+    // order terms are 3.5e-5 relative, so the ratio is checked to 5e-5.
+    const spherical = (2 * 978031.85) / 6378137;
+    assertClose(spherical, 0.30668, { abs: 5e-6 }, '2g/R');
+    const exact = (normalGravityEllipsoidal(0, -10) - normalGravityEllipsoidal(0, 10)) / 20 / MGAL;
+    const fPlusM = 1 / 298.257222101 + 0.00344978600308; // [Moritz1980] f and m
+    assertClose(exact / spherical - 1, fPlusM, { abs: 5e-5 }, 'ratio');
+  });
 });
