@@ -15,9 +15,34 @@
 #   - a named datum other than WGS84/NAD83 (e.g. +datum=NAD27) -> "status": "no_shift";
 #   - anything else (grid shifts, Molodensky...) -> "status": "no_shift" and resolveCrs refuses.
 # Entries whose own string needs a grid (+nadgrids other than @null) get "status": "grid".
+#
+# Datums for which PROJ applies different Helmert shifts in different parts of the CRS's
+# area (it picks per point), so one +towgs84 cannot stand for the whole CRS, are refused
+# ("status": "no_shift"). Measured against cs2cs when this table was made: ED50 in southern
+# Germany 0.47 m off, S-JTSK in Czechia 4.5 m, DHDN in Bavaria 0.11 m (see REGIONAL below).
+#
+# PROJ runs without grid files and without network access (PROJ_DATA holds only proj.db), as
+# talus does: the operations considered are the ones talus can reproduce offline.
 set -euo pipefail
 here="$(cd "$(dirname "$0")" && pwd)"
 out="$here/crs-defs.json"
+projdir="$(mktemp -d)"
+ln -s "$(dirname "$(find /usr/share/proj /usr/local/share/proj -name proj.db 2>/dev/null | sed -n 1p)")/proj.db" "$projdir/proj.db"
+export PROJ_DATA="$projdir" PROJ_LIB="$projdir" PROJ_NETWORK=OFF
+
+# datum -> the codes of this table that use it; PROJ's shift for these depends on the region
+declare -A REGIONAL=(
+  [ED50]="4230 23028 23029 23030 23031 23032 23033 23034 23035 23036 23037 23038"
+  [S-JTSK]="5514"
+  [DHDN]="4314 31466 31467 31468 31469"
+)
+regional_datum() {
+  local d
+  for d in "${!REGIONAL[@]}"; do
+    [[ " ${REGIONAL[$d]} " == *" $1 "* ]] && { echo "$d"; return; }
+  done
+  return 0
+}
 
 codes=()
 add() { for c in "$@"; do codes+=("$c"); done; }
@@ -39,21 +64,25 @@ add 27700 2154 3034 3035 31466 31467 31468 31469 28992 2056 21781 3067 3006 2193
 add 2225 2226 2227 2228 2229 2230 2236 2249 2263 2272 2275 2276 2277 2278 2279 2283 2223
 # the same kind of zone in metres
 add 26943 32118
-# kept so that resolveCrs can name them when it refuses them (their shift needs grids)
+# NAD27 (refused: its shift needs grids) and NZGD49 (its grid-free Helmert is used)
 add 4267 26710 26711 26712 26713 26714 26715 26716 26717 26718 4272 27200
 
 proj_version="$(projinfo 2>&1 | sed -n 's/^Rel\. \([0-9.]*\),.*/\1/p' || true)"
 [ -n "$proj_version" ] || proj_version="$(dpkg-query -W -f '${Version}' proj-bin 2>/dev/null || echo unknown)"
 
 tmp="$(mktemp)"
-trap 'rm -f "$tmp"' EXIT
+trap 'rm -rf "$tmp" "$projdir"' EXIT
 for c in "${codes[@]}"; do
   def="$(projinfo -q -o PROJ --boundcrs-to-wgs84 "EPSG:$c" | tr -d '\n' | sed 's/ +type=crs//; s/ *$//')"
   name="$(projinfo -q -o WKT1_GDAL "EPSG:$c" | sed -n 1p | sed 's/^[A-Z_]*\["\([^"]*\)".*/\1/')"
   case "$def" in +proj=longlat*) kind=geographic ;; *) kind=projected ;; esac
   status=ok
   shift_note="in the projinfo definition"
-  if [[ "$def" == *"+nadgrids="* && "$def" != *"+nadgrids=@null"* ]]; then
+  rd="$(regional_datum "$c")"
+  if [ -n "$rd" ]; then
+    status=no_shift
+    shift_note="PROJ uses different $rd shifts in different parts of this CRS's area; no single +towgs84 fits"
+  elif [[ "$def" == *"+nadgrids="* && "$def" != *"+nadgrids=@null"* ]]; then
     status=grid
     shift_note="needs a datum grid"
   elif [[ "$def" == *"+datum="* && "$def" != *"+datum=WGS84"* && "$def" != *"+datum=NAD83"* ]]; then
