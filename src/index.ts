@@ -18,3 +18,4 @@ export {
   anomalies,
 } from './reduction/index.js';
 export type { NormalFormula, NormalFormulaInfo, FreeAirOrder, AnomalyTerms, Anomalies } from './reduction/index.js';
+export * from './legacy/index.js';
