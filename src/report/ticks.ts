@@ -10,12 +10,12 @@ export interface NiceTicks {
   domainMax: number;
 }
 
-/** The 1-2-5 step nearest to `span / targetCount` (from below, so at least targetCount intervals fit roughly). */
+/** The 1-2-5 step nearest to `span / targetCount` (nearest on a log scale: cut-offs at √2, √10, √50). */
 export function niceStep(span: number, targetCount: number): number {
   const raw = span / Math.max(1, targetCount);
   const power = 10 ** Math.floor(Math.log10(raw));
   const fraction = raw / power;
-  const mult = fraction <= 1 ? 1 : fraction <= 2 ? 2 : fraction <= 5 ? 5 : 10;
+  const mult = fraction < Math.SQRT2 ? 1 : fraction < Math.sqrt(10) ? 2 : fraction < Math.sqrt(50) ? 5 : 10;
   return mult * power;
 }
 
