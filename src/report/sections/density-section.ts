@@ -1,0 +1,56 @@
+/** Density estimates: the Nettleton correlation curve and the Parasnis scatter with its fitted line. */
+import { esc, fmt } from '../escape.js';
+import { lineChart } from '../charts/line-chart.js';
+import { scatterChart } from '../charts/scatter-chart.js';
+import { figure } from '../section-types.js';
+import type { ReportSection, SectionResult } from '../section-types.js';
+
+export const densitySection: ReportSection = {
+  id: 'density',
+  title: 'Density estimates',
+  render: (data): SectionResult => {
+    const d = data.density;
+    if (!d || (!d.nettleton && !d.parasnis)) {
+      return { omitted: d && d.notes.length > 0 ? d.notes.join('; ') : 'no density estimate was computed' };
+    }
+    const parts: string[] = [];
+    const rows: string[] = [];
+    if (d.nettleton) {
+      const n = d.nettleton;
+      parts.push(
+        figure(
+          lineChart({
+            id: 'nettleton',
+            title: 'Nettleton: correlation of CBA with height',
+            xLabel: 'Bouguer density (kg/m³)',
+            yLabel: 'Correlation coefficient (dimensionless)',
+            series: [{ label: `${n.n} stations`, points: n.curve }],
+            markers: [{ x: n.densityKgM3, label: `${fmt(n.densityKgM3, 0)} kg/m³` }],
+          }),
+          'The estimate is the density whose anomaly correlates least with station height.',
+        ),
+      );
+      rows.push(`<tr><th scope="row">Nettleton</th><td>${fmt(n.densityKgM3, 0)}</td><td>–</td><td>${n.n}</td><td>|r| = ${fmt(n.minAbsCorr, 3)}</td></tr>`);
+    }
+    if (d.parasnis) {
+      const p = d.parasnis;
+      parts.push(
+        figure(
+          scatterChart({
+            id: 'parasnis',
+            title: 'Parasnis: fitted density',
+            xLabel: p.xLabel,
+            yLabel: p.yLabel,
+            series: [{ label: 'stations', x: p.points.map((q) => q.x), y: p.points.map((q) => q.y) }],
+            line: { slope: p.slope, intercept: p.interceptMgal, label: `fit: ${fmt(p.densityKgM3, 0)} kg/m³` },
+          }),
+          `Slope of the line is the density; intercept ${fmt(p.interceptMgal)} mGal, r² = ${fmt(p.r2, 3)}, ${p.downweighted} stations down-weighted.`,
+        ),
+      );
+      rows.push(`<tr><th scope="row">Parasnis</th><td>${fmt(p.densityKgM3, 0)}</td><td>${fmt(p.stderrKgM3, 0)}</td><td>${p.n}</td><td>r² = ${fmt(p.r2, 3)}</td></tr>`);
+    }
+    const table = `<table class="stats"><caption>Estimates</caption><thead><tr><th>Method</th><th>density (kg/m³)</th><th>std. error (kg/m³)</th><th>n</th><th>fit</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
+    const notes = d.notes.length > 0 ? `<ul class="notes">${d.notes.map((n) => `<li>${esc(n)}</li>`).join('')}</ul>` : '';
+    return { html: table + notes + parts.join('') };
+  },
+};
