@@ -4,6 +4,21 @@
 export { G, EARTH_RADIUS_M, CAP_RADIUS_M, DEFAULT_DENSITY_KG_M3 } from './constants.js';
 export { MGAL, FOOT_M, US_SURVEY_FOOT_M, metresPer } from './units.js';
 export { InputError } from './errors.js';
+export { prismGz, gravityFromFactor } from './attraction.js';
+export {
+  prismGzFactor,
+  sumPrismsGzFactor,
+  lineElementGzFactor,
+  lineElementGauss2x2GzFactor,
+  pointMassGzFactor,
+  radialColumnGzFactor,
+  hammerSectorGzFactor,
+  HAMMER_ZONES,
+  lineElementRelError,
+  gauss2x2RelError,
+  prismCancellationRelError,
+} from './kernels/index.js';
+export type { HammerZone } from './kernels/index.js';
 export {
   normalGravity,
   isNormalFormula,
