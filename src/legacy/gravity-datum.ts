@@ -11,6 +11,7 @@
  *   own units), convert g.u. to mGal (1 mGal = 10 g.u.), then shift the datum.
  */
 import { InputError } from '../errors.js';
+import type { InputErrorContext } from '../errors.js';
 import { GRAVITY_UNIT, MGAL } from '../units.js';
 
 export type GravityDatum = 'igsn71' | 'potsdam';
@@ -61,6 +62,18 @@ export function parseGravityUnit(text: string, field = '--gravity-units'): Gravi
 export function parseGobsOffset(text: string, field = '--gobs-offset'): number {
   const v = text.trim() === '' ? NaN : Number(text);
   if (!Number.isFinite(v)) throw new InputError(`gravity offset "${text}" is not a finite number`, { field });
+  return v;
+}
+
+/**
+ * Parses one cell of a per-row datum offset column, mGal: empty gives NaN (the datum's own
+ * offset applies); anything else must be a finite number. `ctx` names file, line, station and
+ * column for the message.
+ */
+export function parseDatumOffsetCell(text: string, ctx: InputErrorContext): number {
+  if (text.trim() === '') return NaN;
+  const v = Number(text);
+  if (!Number.isFinite(v)) throw new InputError(`datum offset "${text}" is not a number of mGal`, ctx);
   return v;
 }
 

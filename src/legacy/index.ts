@@ -11,6 +11,7 @@ export {
   parseGravityDatum,
   parseGravityUnit,
   parseGobsOffset,
+  parseDatumOffsetCell,
   mgalPerGravityUnit,
   datumOffsetMgal,
   toIgsn71Mgal,

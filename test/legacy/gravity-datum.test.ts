@@ -4,6 +4,7 @@ import {
   POTSDAM_TO_IGSN71_MGAL,
   datumOffsetMgal,
   describeGravityConversions,
+  parseDatumOffsetCell,
   parseGobsOffset,
   parseGravityDatum,
   parseGravityUnit,
@@ -79,5 +80,12 @@ describe('option parsing', () => {
     expect(() => parseGravityUnit('ugal')).toThrow(/--gravity-units.*"ugal"/);
     expect(() => parseGobsOffset('')).toThrow(/--gobs-offset/);
     expect(() => parseGobsOffset('9e5x')).toThrow(/"9e5x"/);
+  });
+
+  it('reads per-row offset cells: empty falls back, garbage names file, line, station and column', () => {
+    const ctx = { file: 'old.csv', line: 12, station: 'B7', field: 'datum_offset_mgal' };
+    expect(parseDatumOffsetCell('', ctx)).toBeNaN();
+    expect(parseDatumOffsetCell('-13.6', ctx)).toBe(-13.6);
+    expect(() => parseDatumOffsetCell('-13,6', ctx)).toThrow('old.csv:12: station B7: column datum_offset_mgal: datum offset "-13,6"');
   });
 });
