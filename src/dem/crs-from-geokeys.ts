@@ -17,7 +17,7 @@ export interface DemGeoKeys {
   GeogAngularUnitsGeoKey?: number;
 }
 
-/** [GeoTIFF 1.1, 7.1.2] "user-defined" key value. */
+/** The GeoTIFF "user-defined" key value (OGC GeoTIFF 1.1). */
 const USER_DEFINED = 32767;
 
 /** EPSG unit-of-measure codes → metres per unit. */

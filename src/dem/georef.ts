@@ -79,7 +79,7 @@ export function georefFromTags(tags: GeoTags, width: number, height: number, fil
   }
   const pixelConvention = tags.rasterType === 2 ? 'point' : 'area';
   if (pixelConvention === 'point') {
-    // [GeoTIFF 1.1, 2.5.2.2] PixelIsPoint: the model point is the centre of the pixel.
+    // OGC GeoTIFF 1.1, raster space: PixelIsPoint: the model point is the centre of the pixel.
     t.x0 -= t.dx / 2;
     t.y0 -= t.dy / 2;
   }
