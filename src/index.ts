@@ -4,6 +4,19 @@
 export { G, EARTH_RADIUS_M, CAP_RADIUS_M, DEFAULT_DENSITY_KG_M3 } from './constants.js';
 export { MGAL, FOOT_M, US_SURVEY_FOOT_M, metresPer } from './units.js';
 export { InputError } from './errors.js';
+export {
+  openDem,
+  readDemWindow,
+  isEmptyGrid,
+  loadDemMosaic,
+  describeDem,
+  cellsInWindow,
+  cellCentreX,
+  cellCentreY,
+  gridFromFunction,
+  sharedFloat32,
+} from './dem/index.js';
+export type { DemGrid, CrsInfo, DemSource, DemOpenOptions, DemWindow, DemMosaic, DemDescription, CrsResolver } from './dem/index.js';
 export { prismGz, gravityFromFactor } from './attraction.js';
 export {
   prismGzFactor,
