@@ -63,7 +63,7 @@ export function prismGzFactor(
   const r221 = Math.sqrt(xb2 + yb2 + za2);
   const r222 = Math.sqrt(xb2 + yb2 + zb2);
 
-  // [Nagy2000] eq. 8 (the g_z kernel), written as the triple difference
+  // [Nagy1966], [Nagy2000]: closed form of g_z (equation number not checked here), as the triple difference
   // B = [[[ x ln(y + r) + y ln(x + r) - z atan(x y / (z r)) ]]] with sign (-1)^(i+j+k),
   // i, j, k in {1, 2}; then g_z = -G rho B (z down).
   let bracket = 0;
