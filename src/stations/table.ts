@@ -32,6 +32,10 @@ export interface StationTable {
   header: string[];
   /** The input cells of each row, exactly as read (passthrough to the output). */
   rows: string[][];
-  /** Per-station flag codes raised while reading (e.g. 'duplicate_position'). */
+  /** Per-station flag codes raised while reading (e.g. 'duplicate_position', 'bad_row'). */
   flags: string[][];
+  /** One message per problem that became a flag instead of an error (keepGoing), in file order. */
+  warnings?: string[];
+  /** The field delimiter found in the header line. */
+  delimiter?: ',' | ';' | '\t' | 'whitespace';
 }
