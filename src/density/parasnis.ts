@@ -25,7 +25,7 @@ export interface ParasnisResult {
   r2: number;
   /** Stations used. */
   n: number;
-  /** The intercept c, mGal (the mean CBA level, at X = Y = 0 with a trend). */
+  /** The intercept c, mGal (the CBA level; with a trend, at the stations' mean position). */
   interceptMgal: number;
   /** Regional trend, mGal per metre east (ax) and north (ay), when requested. */
   trend?: { ax: number; ay: number };
@@ -54,8 +54,12 @@ export function parasnis(input: DensityInput, opts: ParasnisOptions = {}): Paras
   const withTrend = opts.trend === 'linear';
   const columns: ArrayLike<number>[] = [x];
   if (withTrend) {
+    // centred on the mean position, so the intercept is the CBA level at the survey centre
     const { xM, yM } = localMetres(input);
-    columns.push(xM, yM);
+    const mean = (a: Float64Array): number => a.reduce((t, v) => t + v, 0) / a.length;
+    const x0 = mean(xM);
+    const y0 = mean(yM);
+    columns.push(xM.map((v) => v - x0), yM.map((v) => v - y0));
   }
   const rf = robustLeastSquares(columns, y, opts.robust ?? 'none');
   const f = rf.fit;

@@ -7,7 +7,7 @@
  * practice). Neighbours come from a grid index with ring search: O(n k) for n stations.
  */
 import { buildGridIndex } from './grid-index.js';
-import { MAD_TO_SIGMA, median } from '../density/robust-fit.js';
+import { MAD_TO_SIGMA } from '../density/robust-fit.js';
 
 export interface TcOutlierOptions {
   /** Neighbours compared with, k (default 8). */
@@ -66,7 +66,9 @@ export function tcOutlierFlags(
   const bestD = new Float64Array(k);
   const bestJ = new Int32Array(k);
   const nbTc = new Float64Array(k);
+  const dev = new Float64Array(k);
   const maxRing = Math.ceil(radius / cs) + 1;
+  const radius2 = radius * radius;
   const maxExamined = MAX_EXAMINED_PER_NEIGHBOUR * k;
   for (let i = 0; i < n; i++) {
     if (!usable(i)) continue;
@@ -88,8 +90,10 @@ export function tcOutlierFlags(
             if (j === i) continue;
             examined++;
             if (!(Math.abs((heightM[j] as number) - hi) <= window)) continue;
-            const d = Math.hypot((xM[j] as number) - xi, (yM[j] as number) - yi);
-            if (!(d <= radius)) continue;
+            const ex = (xM[j] as number) - xi;
+            const ey = (yM[j] as number) - yi;
+            const d = ex * ex + ey * ey; // squared distance
+            if (!(d <= radius2)) continue;
             if (found === k && d >= (bestD[k - 1] as number)) continue;
             // insertion into the sorted best-k list
             let s = found < k ? found++ : k - 1;
@@ -104,14 +108,21 @@ export function tcOutlierFlags(
         }
       }
       // every point beyond this ring is at least ring * cellSize away
-      if (found === k && (bestD[k - 1] as number) <= ring * cs) break;
+      if (found === k && (bestD[k - 1] as number) <= (ring * cs) ** 2) break;
     }
     if (found < minNb) continue;
     for (let s = 0; s < found; s++) nbTc[s] = tcMgal[bestJ[s] as number] as number;
-    const nb = nbTc.subarray(0, found);
-    const m = median(nb);
-    const sigma = MAD_TO_SIGMA * median(Float64Array.from(nb, (v) => Math.abs(v - m)));
+    const m = sortedMedian(nbTc.subarray(0, found));
+    for (let s = 0; s < found; s++) dev[s] = Math.abs((nbTc[s] as number) - m);
+    const sigma = MAD_TO_SIGMA * sortedMedian(dev.subarray(0, found));
     flags[i] = Math.abs((tcMgal[i] as number) - m) > Math.max(limit, factor * sigma);
   }
   return flags;
+}
+
+/** Median of a small scratch array, sorting it in place (no allocation). */
+function sortedMedian(a: Float64Array): number {
+  a.sort();
+  const n = a.length;
+  return n % 2 === 1 ? (a[(n - 1) / 2] as number) : ((a[n / 2 - 1] as number) + (a[n / 2] as number)) / 2;
 }
