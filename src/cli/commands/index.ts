@@ -1,10 +1,12 @@
 import type { Command } from 'commander';
 import type { CliIo } from '../io.js';
 import { registerDensityCommand } from './density.js';
+import { registerInspect } from './inspect.js';
 
 /** Each subcommand lives in its own file and registers itself here. */
 export function registerCommands(program: Command, io: CliIo): void {
   void program;
   void io;
   registerDensityCommand(program, io);
+  registerInspect(program, io);
 }
