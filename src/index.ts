@@ -5,6 +5,22 @@ export { G, EARTH_RADIUS_M, CAP_RADIUS_M, DEFAULT_DENSITY_KG_M3 } from './consta
 export { MGAL, FOOT_M, US_SURVEY_FOOT_M, metresPer } from './units.js';
 export { InputError } from './errors.js';
 export {
+  readStations,
+  parseStations,
+  parseColumnMapping,
+  CANONICAL_COLUMNS,
+  detectDelimiter,
+  resolveCrs,
+  knownEpsgCodes,
+  describeEpsg,
+  makeTransform,
+  transformArrays,
+  MIN_HEIGHT_M,
+  MAX_HEIGHT_M,
+  DUPLICATE_POSITION_M,
+} from './stations/index.js';
+export type { StationTable, StationReadOptions, CanonicalColumn, Delimiter, PointTransform, PointSource } from './stations/index.js';
+export {
   openDem,
   readDemWindow,
   isEmptyGrid,
@@ -47,3 +63,5 @@ export {
 } from './reduction/index.js';
 export type { NormalFormula, NormalFormulaInfo, FreeAirOrder, AnomalyTerms, Anomalies } from './reduction/index.js';
 export * from './legacy/index.js';
+export * from './density/index.js';
+export * from './qc/index.js';
