@@ -1,6 +1,7 @@
 import type { Command } from 'commander';
 import type { CliIo } from '../io.js';
 import { registerDensityCommand } from './density.js';
+import { registerReportCommand } from './report.js';
 import { registerInspect } from './inspect.js';
 
 /** Each subcommand lives in its own file and registers itself here. */
@@ -8,5 +9,6 @@ export function registerCommands(program: Command, io: CliIo): void {
   void program;
   void io;
   registerDensityCommand(program, io);
+  registerReportCommand(program, io);
   registerInspect(program, io);
 }
