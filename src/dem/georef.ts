@@ -83,14 +83,14 @@ export function georefFromTags(tags: GeoTags, width: number, height: number, fil
     t.x0 -= t.dx / 2;
     t.y0 -= t.dy / 2;
   }
-  if (!(Number.isFinite(t.x0) && Number.isFinite(t.y0))) {
-    throw new InputError(`has a non-finite grid origin (${t.x0}, ${t.y0})`, { file });
-  }
   if (!(t.dx > 0 && Number.isFinite(t.dx))) {
     throw new InputError(`has cell width ${t.dx}; expected a finite positive x step (columns running east)`, { file });
   }
   if (!(Math.abs(t.dy) > 0 && Number.isFinite(t.dy))) {
     throw new InputError(`has cell height ${-t.dy}; expected a finite non-zero y step`, { file });
+  }
+  if (!(Number.isFinite(t.x0) && Number.isFinite(t.y0))) {
+    throw new InputError(`has a non-finite grid origin (${t.x0}, ${t.y0})`, { file });
   }
   const southUp = t.dy > 0;
   return {
