@@ -1,0 +1,174 @@
+/**
+ * Quadtree walk over one DEM's pyramid for one station: every part of the disc of radius R is
+ * visited exactly once, at the coarsest level whose cells are far enough away for the error
+ * budget (zone-plan.ts), so there are no gaps and no double counting.
+ *
+ * A cell at level L is
+ * - skipped when it lies wholly beyond R or holds no data (weight 0);
+ * - split into its children when it is too close (nearest distance < acceptRatio * size), when
+ *   it overlaps the near-station window, or when it straddles R and is larger than the
+ *   boundary cell size;
+ * - otherwise evaluated (if its centre is within R): a native cell as an exact prism when it
+ *   is near, any cell as a moment-carrying column when far.
+ */
+import type { DemGrid } from '../dem/grid.js';
+import type { GridFrame } from './grid-frame.js';
+import { blockGeometry } from './grid-frame.js';
+import type { Pyramid } from './pyramid.js';
+import { levelWeight } from './pyramid.js';
+import type { ZonePlan } from './zone-plan.js';
+import { EXTENT_ERROR_COEFF, INNER_ZONE_OUTER_M, MIDDLE_ZONE_OUTER_M } from './zone-plan.js';
+import { coarseCellTc, prismCellTc } from './cell-effect.js';
+
+/** Slots of the per-station accumulator. */
+export const ACC = {
+  inner: 0,
+  middle: 1,
+  outer: 2,
+  prisms: 3,
+  columns: 4,
+  geocentric: 5,
+  nearPoints: 6,
+  missingNear: 7,
+  errorEstimate: 8,
+  size: 9,
+} as const;
+
+export interface WindowCells {
+  /** Native column/row bounds of the near window, inclusive; an empty window has c0 > c1. */
+  c0: number;
+  c1: number;
+  r0: number;
+  r1: number;
+}
+
+const NO_WINDOW: WindowCells = { c0: 1, c1: 0, r0: 1, r1: 0 };
+
+/** Scratch state reused between calls (one per thread; the walk allocates nothing). */
+export interface WalkScratch {
+  stack: Int32Array;
+  geom: Float64Array;
+}
+
+export function makeWalkScratch(): WalkScratch {
+  return { stack: new Int32Array(3 * 4096), geom: new Float64Array(4) };
+}
+
+export function walkPyramid(
+  grid: DemGrid,
+  pyr: Pyramid,
+  frame: GridFrame,
+  stationHeightM: number,
+  plan: ZonePlan,
+  window: WindowCells | null,
+  checkNearData: boolean,
+  acc: Float64Array,
+  scratch: WalkScratch,
+): void {
+  const win = window ?? NO_WINDOW;
+  const R = plan.radiusM;
+  const skipR = plan.fieldInnerRadiusM;
+  const ratio = plan.acceptRatio;
+  const geoFrom = plan.geocentricFromM;
+  const nW = pyr.nativeWidth;
+  const nH = pyr.nativeHeight;
+  const g = scratch.geom;
+  let stack = scratch.stack;
+  const top = pyr.levels.length - 1;
+  const topLevel = pyr.levels[top];
+  if (!topLevel) return;
+  let sp = 0;
+  for (let r = 0; r < topLevel.height; r++) {
+    for (let c = 0; c < topLevel.width; c++) {
+      if (sp + 3 > stack.length) stack = grow(stack, scratch);
+      stack[sp++] = top;
+      stack[sp++] = r;
+      stack[sp++] = c;
+    }
+  }
+  while (sp > 0) {
+    const col = stack[--sp] as number;
+    const row = stack[--sp] as number;
+    const level = stack[--sp] as number;
+    const lv = pyr.levels[level];
+    if (!lv) continue;
+    const k = row * lv.width + col;
+    const w = levelWeight(lv, k);
+    const f = lv.factor;
+    const c0 = col * f;
+    const c1 = Math.min(c0 + f, nW);
+    const r0 = row * f;
+    const r1 = Math.min(r0 + f, nH);
+    blockGeometry(frame, c0, c1, r0, r1, g);
+    const e = g[0] as number;
+    const n = g[1] as number;
+    const dx = g[2] as number;
+    const dy = g[3] as number;
+    const ox = Math.max(Math.abs(e) - 0.5 * dx, 0);
+    const oy = Math.max(Math.abs(n) - 0.5 * dy, 0);
+    const dMin = Math.sqrt(ox * ox + oy * oy);
+    if (dMin > R) continue;
+    if (checkNearData && w < 1 && dMin < INNER_ZONE_OUTER_M) acc[ACC.missingNear] = (acc[ACC.missingNear] as number) + 1;
+    if (!(w > 0)) continue;
+    const overlapsWindow = c0 <= win.c1 && c1 - 1 >= win.c0 && r0 <= win.r1 && r1 - 1 >= win.r0;
+    if (level === 0 && overlapsWindow) continue; // integrated by the near zone
+    const size = Math.max(dx, dy);
+    const ex = Math.abs(e) + 0.5 * dx;
+    const ey = Math.abs(n) + 0.5 * dy;
+    const dMax = Math.sqrt(ex * ex + ey * ey);
+    const tooClose = dMin < ratio * size;
+    const straddles = dMax > R && size > plan.boundaryCellM;
+    const straddlesSkip = skipR > 0 && dMin < skipR && dMax > skipR;
+    if (level > 0 && (tooClose || overlapsWindow || straddles || straddlesSkip)) {
+      if (sp + 12 > stack.length) stack = grow(stack, scratch);
+      const cl = level - 1;
+      const below = pyr.levels[cl];
+      if (!below) continue;
+      for (let dr = 0; dr < 2; dr++) {
+        const rr = row * 2 + dr;
+        if (rr >= below.height) continue;
+        for (let dc = 0; dc < 2; dc++) {
+          const cc = col * 2 + dc;
+          if (cc >= below.width) continue;
+          stack[sp++] = cl;
+          stack[sp++] = rr;
+          stack[sp++] = cc;
+        }
+      }
+      continue;
+    }
+    const dCentre = Math.sqrt(e * e + n * n);
+    if (dCentre > R || dCentre < skipR) continue;
+    const dMean = (lv.mean[k] as number) - stationHeightM;
+    let tc: number;
+    if (level === 0 && tooClose) {
+      tc = prismCellTc(e, n, dx, dy, dMean, stationHeightM) * w;
+      acc[ACC.prisms] = (acc[ACC.prisms] as number) + 1;
+    } else {
+      const sd = lv.variance === null ? 0 : Math.sqrt(lv.variance[k] as number);
+      let px = 0;
+      let py = 0;
+      if (sd > 0 && lv.covCol !== null && lv.covRow !== null) {
+        // offsets of the upper point: cov / sd in native cells, to metres (rows run south)
+        px = ((lv.covCol[k] as number) / sd) * (dx / (c1 - c0));
+        py = (-(lv.covRow[k] as number) / sd) * (dy / (r1 - r0));
+      }
+      const geocentric = dCentre >= geoFrom;
+      tc = coarseCellTc(e, n, dx, dy, dMean, sd, px, py, w, stationHeightM, geocentric);
+      const evals = sd > 0 ? 2 : 1;
+      if (geocentric) acc[ACC.geocentric] = (acc[ACC.geocentric] as number) + evals;
+      else acc[ACC.columns] = (acc[ACC.columns] as number) + evals;
+      const q = size / dCentre;
+      acc[ACC.errorEstimate] = (acc[ACC.errorEstimate] as number) + Math.abs(tc) * EXTENT_ERROR_COEFF * q * q * q * q;
+    }
+    const zone = dCentre < INNER_ZONE_OUTER_M ? ACC.inner : dCentre < MIDDLE_ZONE_OUTER_M ? ACC.middle : ACC.outer;
+    acc[zone] = (acc[zone] as number) + tc;
+  }
+}
+
+function grow(stack: Int32Array, scratch: WalkScratch): Int32Array {
+  const bigger = new Int32Array(stack.length * 2);
+  bigger.set(stack);
+  scratch.stack = bigger;
+  return bigger;
+}
