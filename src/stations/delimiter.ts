@@ -47,7 +47,49 @@ export function splitLine(line: string, delimiter: Delimiter, ctx: InputErrorCon
     return splitQuoted(line.trim(), null, ctx);
   }
   if (line.indexOf('"') < 0) return line.split(delimiter);
-  return splitQuoted(line, delimiter, ctx);
+  return splitQuotedDelimited(line, delimiter, ctx);
+}
+
+/** Quote-aware split on a single-character delimiter, scanning with indexOf. */
+function splitQuotedDelimited(line: string, delimiter: string, ctx: InputErrorContext): string[] {
+  const cells: string[] = [];
+  const n = line.length;
+  let i = 0;
+  for (;;) {
+    let j = i;
+    while (j < n && (line.charCodeAt(j) === 32 || line.charCodeAt(j) === 9) && line[j] !== delimiter) j++;
+    if (j < n && line.charCodeAt(j) === 34) {
+      let cell = '';
+      let from = j + 1;
+      for (;;) {
+        const q = line.indexOf('"', from);
+        if (q < 0) throw new InputError(`unterminated quoted field: ${line}; expected a closing '"'`, ctx);
+        cell += line.slice(from, q);
+        if (line.charCodeAt(q + 1) === 34) {
+          cell += '"';
+          from = q + 2;
+          continue;
+        }
+        j = q + 1;
+        break;
+      }
+      while (j < n && (line.charCodeAt(j) === 32 || line.charCodeAt(j) === 9) && line[j] !== delimiter) j++;
+      if (j < n && line[j] !== delimiter) {
+        throw new InputError(`text after a closing quote in: ${line}; expected a delimiter`, ctx);
+      }
+      cells.push(cell);
+    } else {
+      const d = line.indexOf(delimiter, i);
+      j = d < 0 ? n : d;
+      cells.push(line.slice(i, j));
+    }
+    if (j >= n) return cells;
+    i = j + 1;
+    if (i === n) {
+      cells.push('');
+      return cells;
+    }
+  }
 }
 
 /** Quote-aware split; `delimiter` null means runs of spaces/tabs. */

@@ -99,15 +99,15 @@ export function parseStations(text: string, file: string, opts: StationReadOptio
         );
       }
       if (id === '') throw new InputError('empty station id', { ...ctx, field: header[col.id] as string });
-      const x = parseRequiredNumber(cells[posX], positions === 'xy' ? `an x coordinate in ${crs.label}` : 'a longitude in degrees', at(ctx, header, posX));
-      const y = parseRequiredNumber(cells[posY], positions === 'xy' ? `a y coordinate in ${crs.label}` : 'a latitude in degrees', at(ctx, header, posY));
+      const x = parseRequiredNumber(cells[posX], positions === 'xy' ? `an x coordinate in ${crs.label}` : 'a longitude in degrees', ctx, header[posX]);
+      const y = parseRequiredNumber(cells[posY], positions === 'xy' ? `a y coordinate in ${crs.label}` : 'a latitude in degrees', ctx, header[posY]);
       if (positions === 'lonlat') {
-        checkLongitude(x, at(ctx, header, posX));
-        checkLatitude(y, at(ctx, header, posY));
+        checkLongitude(x, ctx, header[posX]);
+        checkLatitude(y, ctx, header[posY]);
       }
-      const hRaw = parseRequiredNumber(cells[col.height_m], `a height in ${heightUnit}`, at(ctx, header, col.height_m));
+      const hRaw = parseRequiredNumber(cells[col.height_m], `a height in ${heightUnit}`, ctx, header[col.height_m]);
       const hM = hRaw * heightFactor;
-      checkHeight(hM, hRaw, heightUnit, at(ctx, header, col.height_m));
+      checkHeight(hM, hRaw, heightUnit, ctx, header[col.height_m]);
       const g = optional(cells, col.gobs_mgal, 'observed gravity in mGal', ctx, header);
       const itc = optional(cells, col.inner_tc_mgal, 'a terrain correction in mGal', ctx, header);
       const ltc = optional(cells, col.legacy_tc_mgal, 'a terrain correction in mGal', ctx, header);
@@ -131,7 +131,7 @@ export function parseStations(text: string, file: string, opts: StationReadOptio
       flags.push(['bad_row']);
     }
     // duplicate ids are fatal even with keepGoing: output rows could not be told apart
-    checkDuplicateId(seen, id, line, { file, line, station: id }, header[col.id] as string);
+    checkDuplicateId(seen, id, line, file, header[col.id] as string);
     ids.push(id);
     lineNos.push(line);
     rows.push(cells);
@@ -187,12 +187,8 @@ function isSkipped(line: string): boolean {
   return t === '' || t.startsWith('#');
 }
 
-function at(ctx: InputErrorContext, header: readonly string[], index: number): InputErrorContext {
-  return { ...ctx, field: header[index] as string };
-}
-
 function optional(cells: string[], index: number, what: string, ctx: InputErrorContext, header: readonly string[]): number {
-  return index < 0 ? NaN : parseOptionalNumber(cells[index], what, at(ctx, header, index));
+  return index < 0 ? NaN : parseOptionalNumber(cells[index], what, ctx, header[index]);
 }
 
 function checkHeaderNames(header: readonly string[], file: string, line: number): void {
@@ -206,10 +202,10 @@ function checkHeaderNames(header: readonly string[], file: string, line: number)
   });
 }
 
-function checkDuplicateId(seen: Map<string, number>, id: string, line: number, ctx: InputErrorContext, field: string): void {
+function checkDuplicateId(seen: Map<string, number>, id: string, line: number, file: string, field: string): void {
   const before = seen.get(id);
   if (before !== undefined) {
-    throw new InputError(`station id '${id}' appears twice: lines ${before} and ${line}; expected unique ids`, { ...ctx, field });
+    throw new InputError(`station id '${id}' appears twice: lines ${before} and ${line}; expected unique ids`, { file, line, station: id, field });
   }
   seen.set(id, line);
 }

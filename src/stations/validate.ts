@@ -20,31 +20,36 @@ export const DUPLICATE_POSITION_M = 0.01;
  * A required number: a plain decimal (no hex, no 'Infinity', no decimal comma), finite.
  * `what` says what was expected, e.g. "a longitude in degrees".
  */
-export function parseRequiredNumber(cell: string | undefined, what: string, ctx: InputErrorContext): number {
+export function parseRequiredNumber(cell: string | undefined, what: string, ctx: InputErrorContext, field?: string): number {
   const s = cell === undefined ? '' : cell.trim();
-  if (s === '') throw new InputError(`empty value; expected ${what}`, ctx);
-  if (!DECIMAL.test(s)) throw new InputError(`'${s}' is not a number; expected ${what} (decimal point '.')`, ctx);
+  if (s === '') throw new InputError(`empty value; expected ${what}`, withField(ctx, field));
+  if (!DECIMAL.test(s)) throw new InputError(`'${s}' is not a number; expected ${what} (decimal point '.')`, withField(ctx, field));
   const v = Number(s);
-  if (!Number.isFinite(v)) throw new InputError(`'${s}' is not finite; expected ${what}`, ctx);
+  if (!Number.isFinite(v)) throw new InputError(`'${s}' is not finite; expected ${what}`, withField(ctx, field));
   return v;
 }
 
-/** An optional number: empty cell → NaN (documented: the station gets no anomaly); text → error. */
-export function parseOptionalNumber(cell: string | undefined, what: string, ctx: InputErrorContext): number {
-  const s = cell === undefined ? '' : cell.trim();
-  if (s === '') return NaN;
-  return parseRequiredNumber(s, what, ctx);
+/** The context with the column name added (built only when a message is made). */
+function withField(ctx: InputErrorContext, field: string | undefined): InputErrorContext {
+  return field === undefined ? ctx : { ...ctx, field };
 }
 
-export function checkLatitude(latDeg: number, ctx: InputErrorContext): void {
+/** An optional number: empty cell → NaN (documented: the station gets no anomaly); text → error. */
+export function parseOptionalNumber(cell: string | undefined, what: string, ctx: InputErrorContext, field?: string): number {
+  const s = cell === undefined ? '' : cell.trim();
+  if (s === '') return NaN;
+  return parseRequiredNumber(s, what, ctx, field);
+}
+
+export function checkLatitude(latDeg: number, ctx: InputErrorContext, field?: string): void {
   if (!(latDeg >= -90 && latDeg <= 90)) {
-    throw new InputError(`latitude ${latDeg} is outside [-90, 90] degrees`, ctx);
+    throw new InputError(`latitude ${latDeg} is outside [-90, 90] degrees`, withField(ctx, field));
   }
 }
 
-export function checkLongitude(lonDeg: number, ctx: InputErrorContext): void {
+export function checkLongitude(lonDeg: number, ctx: InputErrorContext, field?: string): void {
   if (!(lonDeg >= -180 && lonDeg < 360)) {
-    throw new InputError(`longitude ${lonDeg} is outside [-180, 360) degrees`, ctx);
+    throw new InputError(`longitude ${lonDeg} is outside [-180, 360) degrees`, withField(ctx, field));
   }
 }
 
@@ -52,12 +57,12 @@ export function checkLongitude(lonDeg: number, ctx: InputErrorContext): void {
  * Station height in metres within [MIN_HEIGHT_M, MAX_HEIGHT_M]. `raw` is the value in the file's
  * unit; when the file is in metres and the value would be plausible in feet, the message says so.
  */
-export function checkHeight(heightM: number, raw: number, unit: LengthUnit, ctx: InputErrorContext): void {
+export function checkHeight(heightM: number, raw: number, unit: LengthUnit, ctx: InputErrorContext, field?: string): void {
   if (heightM >= MIN_HEIGHT_M && heightM <= MAX_HEIGHT_M) return;
   const shown = unit === 'm' ? `${raw} m` : `${raw} ${unit} (${heightM} m)`;
   const feetHint =
     unit === 'm' && raw > MAX_HEIGHT_M && raw * FOOT_M <= MAX_HEIGHT_M ? '; did you mean --height-units ft?' : '';
-  throw new InputError(`height ${shown} is outside [${MIN_HEIGHT_M}, ${MAX_HEIGHT_M}] m${feetHint}`, ctx);
+  throw new InputError(`height ${shown} is outside [${MIN_HEIGHT_M}, ${MAX_HEIGHT_M}] m${feetHint}`, withField(ctx, field));
 }
 
 /**
