@@ -65,3 +65,4 @@ export type { NormalFormula, NormalFormulaInfo, FreeAirOrder, AnomalyTerms, Anom
 export * from './legacy/index.js';
 export * from './density/index.js';
 export * from './qc/index.js';
+export * from './report/index.js';

@@ -25,9 +25,47 @@ interface ChartCheck {
   marks: number;
   marksWidth: number;
   marksHeight: number;
+  texts: number;
   clippedTexts: string[];
   overlappingTicks: string[];
 }
+
+/**
+ * Runs in the page (a string, so the Node-side type check needs no DOM types): per chart, its
+ * size, its marks and their bounding box, texts reaching outside the chart, and pairs of tick
+ * labels on one axis whose boxes intersect.
+ */
+const MEASURE_CHARTS_JS = `[...document.querySelectorAll('svg.chart')].map((svg) => {
+  const box = svg.getBoundingClientRect();
+  const marks = svg.querySelector('g.marks');
+  const mb = marks ? marks.getBBox() : { width: 0, height: 0 };
+  const clippedTexts = [];
+  for (const t of svg.querySelectorAll('text')) {
+    const r = t.getBoundingClientRect();
+    if (r.width === 0) continue;
+    if (r.left < box.left - 1 || r.right > box.right + 1 || r.top < box.top - 1 || r.bottom > box.bottom + 1) clippedTexts.push(t.textContent);
+  }
+  const overlappingTicks = [];
+  for (const axis of svg.querySelectorAll('g.axis')) {
+    const rs = [...axis.querySelectorAll(':scope > text:not(.axis-label)')].map((t) => ({ r: t.getBoundingClientRect(), s: t.textContent }));
+    for (let i = 0; i < rs.length; i++)
+      for (let j = i + 1; j < rs.length; j++) {
+        const a = rs[i].r, b = rs[j].r;
+        if (a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom) overlappingTicks.push(rs[i].s + ' / ' + rs[j].s);
+      }
+  }
+  return {
+    id: svg.getAttribute('data-chart'),
+    width: box.width,
+    height: box.height,
+    marks: marks ? marks.querySelectorAll('circle, rect, path, line, image').length : 0,
+    marksWidth: mb.width,
+    marksHeight: mb.height,
+    texts: svg.querySelectorAll('text').length,
+    clippedTexts,
+    overlappingTicks,
+  };
+})`;
 
 describe('report in headless Chromium', () => {
   it('Chromium is installed where the browser test expects it (required when CI is set)', () => {
@@ -71,39 +109,7 @@ describe('report in headless Chromium', () => {
       });
       await page.goto(fileUrl, { waitUntil: 'load' });
 
-      const checks: ChartCheck[] = await page.$$eval('svg.chart', (svgs) =>
-        svgs.map((svg) => {
-          const box = svg.getBoundingClientRect();
-          const marks = svg.querySelector('g.marks');
-          const mb = marks ? (marks as SVGGraphicsElement).getBBox() : { width: 0, height: 0 };
-          const clippedTexts: string[] = [];
-          for (const t of Array.from(svg.querySelectorAll('text'))) {
-            const r = t.getBoundingClientRect();
-            if (r.width === 0) continue;
-            if (r.left < box.left - 1 || r.right > box.right + 1 || r.top < box.top - 1 || r.bottom > box.bottom + 1) clippedTexts.push(t.textContent ?? '');
-          }
-          const overlappingTicks: string[] = [];
-          for (const axis of Array.from(svg.querySelectorAll('g.axis'))) {
-            const rs = Array.from(axis.querySelectorAll(':scope > text:not(.axis-label)')).map((t) => ({ r: t.getBoundingClientRect(), s: t.textContent ?? '' }));
-            for (let i = 0; i < rs.length; i++)
-              for (let j = i + 1; j < rs.length; j++) {
-                const a = rs[i]!.r;
-                const b = rs[j]!.r;
-                if (a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom) overlappingTicks.push(`${rs[i]!.s} / ${rs[j]!.s}`);
-              }
-          }
-          return {
-            id: svg.getAttribute('data-chart') ?? '',
-            width: box.width,
-            height: box.height,
-            marks: marks ? marks.querySelectorAll('circle, rect, path, line, image').length : 0,
-            marksWidth: mb.width,
-            marksHeight: mb.height,
-            clippedTexts,
-            overlappingTicks,
-          };
-        }),
-      );
+      const checks = (await page.evaluate(MEASURE_CHARTS_JS)) as ChartCheck[];
       expect(checks.map((c) => c.id).sort()).toEqual([...EXPECTED_CHARTS].sort());
       for (const c of checks) {
         expect(c.width, c.id).toBeGreaterThan(100);
@@ -111,11 +117,12 @@ describe('report in headless Chromium', () => {
         expect(c.marks, c.id).toBeGreaterThan(0);
         expect(c.marksWidth, c.id).toBeGreaterThan(0);
         expect(c.marksHeight, c.id).toBeGreaterThan(0);
+        expect(c.texts, `${c.id}: ticks and labels drawn`).toBeGreaterThan(5);
         expect(c.clippedTexts, `${c.id}: text outside the chart`).toEqual([]);
         expect(c.overlappingTicks, `${c.id}: overlapping tick labels`).toEqual([]);
       }
       // the relief PNGs decode in the browser: an SVG <image> that failed would have an empty box
-      const reliefBoxes = await page.$$eval('image.relief', (imgs) => imgs.map((i) => (i as SVGGraphicsElement).getBBox().width));
+      const reliefBoxes = (await page.evaluate(`[...document.querySelectorAll('image.relief')].map((i) => i.getBBox().width)`)) as number[];
       expect(reliefBoxes.length).toBe(3);
       for (const w of reliefBoxes) expect(w).toBeGreaterThan(0);
 
@@ -124,7 +131,7 @@ describe('report in headless Chromium', () => {
 
       // printed: every section after the first starts a new page
       await page.emulateMedia({ media: 'print' });
-      const breaks = await page.$$eval('section', (ss) => ss.map((s) => getComputedStyle(s).breakBefore));
+      const breaks = (await page.evaluate(`[...document.querySelectorAll('section')].map((s) => getComputedStyle(s).breakBefore)`)) as string[];
       expect(breaks.slice(1).every((b) => b === 'page')).toBe(true);
       expect(problems).toEqual([]);
       await page.close();

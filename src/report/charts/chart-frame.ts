@@ -62,16 +62,24 @@ export function createFrame(spec: FrameSpec): Frame {
   const yLabelChars = Math.max(...yt.ticks.map((t) => tickLabel(t, yt.step).length));
   const left = Math.round(30 + yLabelChars * CHAR_W + 8);
   const top = 34;
-  const right = 16 + (spec.rightPad ?? 0);
   const bottom = 50;
-  const plotWidth = width - left - right;
   const plotHeight = height - top - bottom;
+  // the last x label is centred on the right edge: leave room for half of it
+  const xLabelW = (t: { ticks: number[]; step: number }) => Math.max(...t.ticks.map((v) => tickLabel(v, t.step).length)) * CHAR_W;
+  const right = Math.max(16, Math.ceil(xLabelW(xt) / 2) + 4) + (spec.rightPad ?? 0);
+  const plotWidth = width - left - right;
   let xDomain: [number, number] = [xt.domainMin, xt.domainMax];
   let yDomain: [number, number] = [yt.domainMin, yt.domainMax];
   if (spec.equalAspect !== undefined) {
     [xDomain, yDomain] = fitAspect(spec.xDomain, spec.yDomain, plotWidth, plotHeight, spec.equalAspect);
     xt = niceTicks(xDomain[0], xDomain[1], target - 1);
     yt = niceTicks(yDomain[0], yDomain[1], target - 1);
+  }
+  // fewer x ticks while their labels (plus a gap) would not fit side by side
+  for (let n = target - 1; n >= 2 && xt.ticks.length * (xLabelW(xt) + 12) > plotWidth + xLabelW(xt); n--) {
+    const fewer = niceTicks(xDomain[0], xDomain[1], n);
+    if (spec.equalAspect === undefined) xDomain = [fewer.domainMin, fewer.domainMax];
+    xt = fewer;
   }
   const inside = (v: number, d: [number, number]) => v >= d[0] - 1e-9 * Math.abs(d[1] - d[0]) && v <= d[1] + 1e-9 * Math.abs(d[1] - d[0]);
   const cats = spec.xCategories;
