@@ -135,7 +135,7 @@ function densityView(table: CsvTable, mapping: Partial<Record<DensityColumn, str
   const p = parasnis(input);
   if (!nt.zeroCrossing) notes.push('The Nettleton correlation does not cross zero in the sweep: the estimate is the least |correlation|.');
   return {
-    nettleton: { densityKgM3: nt.densityKgM3, curve: nt.curve, minAbsCorr: nt.minAbsCorr, n: nt.n },
+    nettleton: { densityKgM3: nt.densityKgM3, stderrKgM3: nt.stderrKgM3, curve: nt.curve, minAbsCorr: nt.minAbsCorr, n: nt.n },
     parasnis: {
       densityKgM3: p.densityKgM3,
       stderrKgM3: p.stderrKgM3,

@@ -20,6 +20,8 @@ export interface ReportStations {
 /** A Nettleton estimate as the density module returns it. */
 export interface NettletonView {
   densityKgM3: number;
+  /** Half-width of the density interval where |corr| is not significant, kg/m^3; NaN without a zero crossing. */
+  stderrKgM3: number;
   /** [density kg/m^3, correlation of CBA(density) with height]. */
   curve: readonly (readonly [number, number])[];
   minAbsCorr: number;

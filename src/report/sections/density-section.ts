@@ -30,7 +30,7 @@ export const densitySection: ReportSection = {
           'The estimate is the density whose anomaly correlates least with station height.',
         ),
       );
-      rows.push(`<tr><th scope="row">Nettleton</th><td>${fmt(n.densityKgM3, 0)}</td><td>–</td><td>${n.n}</td><td>|r| = ${fmt(n.minAbsCorr, 3)}</td></tr>`);
+      rows.push(`<tr><th scope="row">Nettleton</th><td>${fmt(n.densityKgM3, 0)}</td><td>${fmt(n.stderrKgM3, 0)}</td><td>${n.n}</td><td>|r| = ${fmt(n.minAbsCorr, 3)}</td></tr>`);
     }
     if (d.parasnis) {
       const p = d.parasnis;
