@@ -33,6 +33,17 @@ describe('talus report', () => {
     expect((html.match(/<image class="relief" href="data:image\/png;base64,/g) ?? []).length).toBe(3);
   });
 
+  it('--dem in another kind of CRS than the station positions: report written, relief left out with a note', async () => {
+    const results = writeSyntheticResults(dir, { name: 'geo.csv', coords: 'lonlat' });
+    const out = join(dir, 'geo.html');
+    const io = memoryIo();
+    expect(await runCli(['report', results, '-o', out, '--dem', DEM], io)).toBe(0);
+    const html = readFileSync(out, 'utf8');
+    expect(html).not.toContain('<image class="relief"');
+    expect(html).toContain('Shaded relief left out');
+    expect(io.err()).toContain('Shaded relief left out');
+  });
+
   it('a missing results file is an input error (exit 2) naming the file', async () => {
     const io = memoryIo();
     const missing = join(dir, 'nope.csv');

@@ -16,6 +16,8 @@ export interface BoxGroup {
 export interface BoxStripSpec {
   id: string;
   title: string;
+  /** Label under the group names (default "Group"). */
+  xLabel?: string;
   yLabel: string;
   groups: readonly BoxGroup[];
   width?: number;
@@ -34,7 +36,7 @@ export function boxStripChart(spec: BoxStripSpec): string {
   const f = createFrame({
     id: spec.id,
     title: spec.title,
-    xLabel: 'Component',
+    xLabel: spec.xLabel ?? 'Group',
     yLabel: spec.yLabel,
     xDomain: [0, spec.groups.length],
     yDomain: yd,

@@ -39,6 +39,7 @@ export const deltaSection: ReportSection = {
     const svg = boxStripChart({
       id: 'legacy-change',
       title: 'Distribution of each part of the change',
+      xLabel: 'Part of the change (column delta_<part>_mgal)',
       yLabel: 'Change (mGal)',
       groups: deltas.map((d) => ({ label: d.part, values: d.values })),
     });
