@@ -80,3 +80,55 @@ function lineElementParts(
   const corr = (-(dx2 + dy2) * d3 + 3 * (dx2 * cx * cx + dy2 * cy * cy) * d5) / 24;
   return dx * dy * (withLine ? d1 + corr : corr);
 }
+
+/**
+ * Extent correction for a column whose depths follow a sphere below the station's tangent
+ * plane: z_i(x, y) = drop(x, y) + c_i, drop = rs - sqrt(rs^2 - x^2 - y^2). The cell average of
+ * G(x, y) = g(x, y, drop(x, y) + c) picks up the chain-rule terms
+ *   G_xx = g_xx + 2 g_xz drop_x + g_zz drop_x^2 + g_z drop_xx   (and likewise in y),
+ * which matter for distant cells, where the column's effect is mostly the curvature term
+ * linear in its height. Direct differences between the two depths are used: this form is
+ * meant for cells many kilometres away, whose depths differ by far more than the rounding.
+ * @param dx, dy cell size east / north, m
+ * @param cx, cy cell centre east / north of the station, m
+ * @param c1, c2 top and bottom depth offsets below the sphere at the cell centre, m (z down)
+ * @param sphereRadiusM radius of the sphere through the station, m
+ * @returns the correction (mean over the cell minus the centre value) of the line-element
+ *   factor, m
+ */
+export function curvedExtentCorrectionFactor(
+  dx: number,
+  dy: number,
+  cx: number,
+  cy: number,
+  c1: number,
+  c2: number,
+  sphereRadiusM: number,
+): number {
+  const rho2 = cx * cx + cy * cy;
+  const t2 = sphereRadiusM * sphereRadiusM - rho2;
+  const t = Math.sqrt(t2);
+  const drop = rho2 / (sphereRadiusM + t);
+  const dX = cx / t;
+  const dY = cy / t;
+  const dXX = 1 / t + (cx * cx) / (t2 * t);
+  const dYY = 1 / t + (cy * cy) / (t2 * t);
+  const dx2 = dx * dx;
+  const dy2 = dy * dy;
+  const second = (z: number): number => {
+    const q2 = rho2 + z * z;
+    const q = Math.sqrt(q2);
+    const q3 = q2 * q;
+    const q5 = q3 * q2;
+    const gz = -z / q3;
+    const gzz = -1 / q3 + (3 * z * z) / q5;
+    const gxx = -1 / q3 + (3 * cx * cx) / q5;
+    const gyy = -1 / q3 + (3 * cy * cy) / q5;
+    const gxz = (3 * cx * z) / q5;
+    const gyz = (3 * cy * z) / q5;
+    const Gxx = gxx + 2 * gxz * dX + gzz * dX * dX + gz * dXX;
+    const Gyy = gyy + 2 * gyz * dY + gzz * dY * dY + gz * dYY;
+    return (dx2 * Gxx + dy2 * Gyy) / 24;
+  };
+  return dx * dy * (second(drop + c1) - second(drop + c2));
+}

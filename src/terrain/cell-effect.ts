@@ -7,7 +7,7 @@
  * TC is minus its downward attraction (kernels: z positive down) [LaFehr1991 convention].
  * Weight scales the cell's area.
  */
-import { lineElementExtentCorrectionFactor, lineElementExtentGzFactor } from '../kernels/line-element-extent.js';
+import { curvedExtentCorrectionFactor, lineElementExtentGzFactor } from '../kernels/line-element-extent.js';
 import { prismGzFactor } from '../kernels/prism.js';
 import { radialColumnGzFactor } from '../kernels/radial-column.js';
 import { EARTH_RADIUS_M } from '../constants.js';
@@ -18,7 +18,7 @@ function flatColumnTc(eM: number, nM: number, dxM: number, dyM: number, drop: nu
   return -lineElementExtentGzFactor(dxM, dyM, eM, nM, drop - dH, drop);
 }
 
-/** Geocentric radial column plus the flat extent correction. */
+/** Geocentric radial column plus the extent correction on the sphere. */
 function geoColumnTc(
   eM: number,
   nM: number,
@@ -32,7 +32,7 @@ function geoColumnTc(
 ): number {
   return -(
     radialColumnGzFactor(omega, rs, rs, rs + dH, cosPsi) +
-    lineElementExtentCorrectionFactor(dxM, dyM, eM, nM, drop - dH, drop)
+    curvedExtentCorrectionFactor(dxM, dyM, eM, nM, -dH, 0, rs)
   );
 }
 
@@ -62,37 +62,75 @@ export function columnTc(
 }
 
 /**
- * A coarse cell by the two-point rule: half its area at mean + sd placed at +p from the
- * centre, half at mean - sd placed at -p, with p = cov(H, position) / sd. This reproduces
- * the cell's mean, variance and height-position covariance exactly, so both the linear and
- * the quadratic parts of the column's response to height (the curvature and the terrain
- * terms) see the right amount of mass on the right side of the cell.
- * @param eM, nM cell centre east / north of the station, m
- * @param dxM, dyM cell size, m
- * @param dMeanM mean terrain height minus station height, m
- * @param sdM standard deviation of the terrain height within the cell, m
- * @param pxM, pyM offset of the upper point east / north, m
- * @param weight fraction of the cell in use, 0..1
+ * The two-point representation of a coarse cell's height distribution: weight wUp of the
+ * area at height dUp placed at (pUpE, pUpN) from the cell centre, the rest at dLo placed at
+ * (pLoE, pLoN). Chosen to reproduce the cell's mean, variance, third central moment and the
+ * height-position covariance exactly (common practice: the two-point distribution with given
+ * skewness), so a cell cut by an escarpment becomes its two terraces, each on its own side.
  */
+export interface TwoPoint {
+  wUp: number;
+  dUp: number;
+  dLo: number;
+  pUpE: number;
+  pUpN: number;
+  pLoE: number;
+  pLoN: number;
+}
+
+/** Smallest weight given to either point (keeps extreme skewness finite). */
+const MIN_POINT_WEIGHT = 0.02;
+
+/**
+ * @param dMeanM mean height minus station height, m
+ * @param sdM standard deviation, m (> 0)
+ * @param m3 third central moment, m^3
+ * @param covE, covN covariance of height with the east / north offset, m^2
+ * @param halfE, halfN half the cell size east / north, m (bounds the offsets)
+ */
+export function twoPointFromMoments(
+  dMeanM: number,
+  sdM: number,
+  m3: number,
+  covE: number,
+  covN: number,
+  halfE: number,
+  halfN: number,
+  out: TwoPoint,
+): void {
+  const skew = m3 / (sdM * sdM * sdM);
+  let wUp = Number.isFinite(skew) ? 0.5 * (1 - skew / Math.sqrt(4 + skew * skew)) : 0.5;
+  wUp = Math.min(1 - MIN_POINT_WEIGHT, Math.max(MIN_POINT_WEIGHT, wUp));
+  const wLo = 1 - wUp;
+  const dUp = dMeanM + sdM * Math.sqrt(wLo / wUp);
+  const dLo = dMeanM - sdM * Math.sqrt(wUp / wLo);
+  const k = 1 / (wUp * (dUp - dLo));
+  const pUpE = Math.max(-halfE, Math.min(halfE, covE * k));
+  const pUpN = Math.max(-halfN, Math.min(halfN, covN * k));
+  out.wUp = wUp;
+  out.dUp = dUp;
+  out.dLo = dLo;
+  out.pUpE = pUpE;
+  out.pUpN = pUpN;
+  out.pLoE = (-wUp * pUpE) / wLo;
+  out.pLoN = (-wUp * pUpN) / wLo;
+}
+
+/** A coarse cell by its two-point representation, TC factor in metres, times its weight. */
 export function coarseCellTc(
   eM: number,
   nM: number,
   dxM: number,
   dyM: number,
-  dMeanM: number,
-  sdM: number,
-  pxM: number,
-  pyM: number,
+  tp: TwoPoint,
   weight: number,
   stationHeightM: number,
   geocentric: boolean,
 ): number {
-  if (!(sdM > 0)) return weight * columnTc(eM, nM, dxM, dyM, dMeanM, stationHeightM, geocentric);
   return (
-    0.5 *
     weight *
-    (columnTc(eM + pxM, nM + pyM, dxM, dyM, dMeanM + sdM, stationHeightM, geocentric) +
-      columnTc(eM - pxM, nM - pyM, dxM, dyM, dMeanM - sdM, stationHeightM, geocentric))
+    (tp.wUp * columnTc(eM + tp.pUpE, nM + tp.pUpN, dxM, dyM, tp.dUp, stationHeightM, geocentric) +
+      (1 - tp.wUp) * columnTc(eM + tp.pLoE, nM + tp.pLoN, dxM, dyM, tp.dLo, stationHeightM, geocentric))
   );
 }
 

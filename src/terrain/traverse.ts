@@ -18,7 +18,8 @@ import type { Pyramid } from './pyramid.js';
 import { levelWeight } from './pyramid.js';
 import type { ZonePlan } from './zone-plan.js';
 import { EXTENT_ERROR_COEFF, INNER_ZONE_OUTER_M, MIDDLE_ZONE_OUTER_M } from './zone-plan.js';
-import { coarseCellTc, prismCellTc } from './cell-effect.js';
+import type { TwoPoint } from './cell-effect.js';
+import { coarseCellTc, columnTc, prismCellTc, twoPointFromMoments } from './cell-effect.js';
 
 /** Slots of the per-station accumulator. */
 export const ACC = {
@@ -48,10 +49,15 @@ const NO_WINDOW: WindowCells = { c0: 1, c1: 0, r0: 1, r1: 0 };
 export interface WalkScratch {
   stack: Int32Array;
   geom: Float64Array;
+  twoPoint: TwoPoint;
 }
 
 export function makeWalkScratch(): WalkScratch {
-  return { stack: new Int32Array(3 * 4096), geom: new Float64Array(4) };
+  return {
+    stack: new Int32Array(3 * 4096),
+    geom: new Float64Array(4),
+    twoPoint: { wUp: 0.5, dUp: 0, dLo: 0, pUpE: 0, pUpN: 0, pLoE: 0, pLoN: 0 },
+  };
 }
 
 export function walkPyramid(
@@ -138,23 +144,36 @@ export function walkPyramid(
       continue;
     }
     const dCentre = Math.sqrt(e * e + n * n);
-    if (dCentre > R || dCentre < skipR) continue;
+    // A cell cut by the outer radius (or by the field inner radius) counts with the fraction
+    // of it inside the annulus, sampled on 8 x 8 points, so the disc has no staircase edge.
+    const inAnnulus = dMax > R || (skipR > 0 && dMin < skipR) ? annulusFraction(e, n, dx, dy, skipR, R) : 1;
+    if (!(inAnnulus > 0)) continue;
     const dMean = (lv.mean[k] as number) - stationHeightM;
     let tc: number;
     if (level === 0 && tooClose) {
-      tc = prismCellTc(e, n, dx, dy, dMean, stationHeightM) * w;
+      tc = prismCellTc(e, n, dx, dy, dMean, stationHeightM) * w * inAnnulus;
       acc[ACC.prisms] = (acc[ACC.prisms] as number) + 1;
     } else {
       const sd = lv.variance === null ? 0 : Math.sqrt(lv.variance[k] as number);
-      let px = 0;
-      let py = 0;
-      if (sd > 0 && lv.covCol !== null && lv.covRow !== null) {
-        // offsets of the upper point: cov / sd in native cells, to metres (rows run south)
-        px = ((lv.covCol[k] as number) / sd) * (dx / (c1 - c0));
-        py = (-(lv.covRow[k] as number) / sd) * (dy / (r1 - r0));
-      }
       const geocentric = dCentre >= geoFrom;
-      tc = coarseCellTc(e, n, dx, dy, dMean, sd, px, py, w, stationHeightM, geocentric);
+      if (sd > 0) {
+        // covariances per native cell -> metres (rows run south)
+        const cellE = dx / (c1 - c0);
+        const cellN = dy / (r1 - r0);
+        twoPointFromMoments(
+          dMean,
+          sd,
+          lv.moment3 ? (lv.moment3[k] as number) : 0,
+          lv.covCol ? (lv.covCol[k] as number) * cellE : 0,
+          lv.covRow ? -(lv.covRow[k] as number) * cellN : 0,
+          0.5 * dx,
+          0.5 * dy,
+          scratch.twoPoint,
+        );
+        tc = coarseCellTc(e, n, dx, dy, scratch.twoPoint, w * inAnnulus, stationHeightM, geocentric);
+      } else {
+        tc = w * inAnnulus * columnTc(e, n, dx, dy, dMean, stationHeightM, geocentric);
+      }
       const evals = sd > 0 ? 2 : 1;
       if (geocentric) acc[ACC.geocentric] = (acc[ACC.geocentric] as number) + evals;
       else acc[ACC.columns] = (acc[ACC.columns] as number) + evals;
@@ -164,6 +183,22 @@ export function walkPyramid(
     const zone = dCentre < INNER_ZONE_OUTER_M ? ACC.inner : dCentre < MIDDLE_ZONE_OUTER_M ? ACC.middle : ACC.outer;
     acc[zone] = (acc[zone] as number) + tc;
   }
+}
+
+/** Fraction of the cell (centre e, n; size dx, dy) between radii rIn and rOut, on 8 x 8 samples. */
+function annulusFraction(e: number, n: number, dx: number, dy: number, rIn: number, rOut: number): number {
+  let inside = 0;
+  const rIn2 = rIn * rIn;
+  const rOut2 = rOut * rOut;
+  for (let i = 0; i < 8; i++) {
+    const x = e + ((i + 0.5) / 8 - 0.5) * dx;
+    for (let j = 0; j < 8; j++) {
+      const y = n + ((j + 0.5) / 8 - 0.5) * dy;
+      const r2 = x * x + y * y;
+      if (r2 <= rOut2 && r2 >= rIn2) inside++;
+    }
+  }
+  return inside / 64;
 }
 
 function grow(stack: Int32Array, scratch: WalkScratch): Int32Array {
