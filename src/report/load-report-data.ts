@@ -8,7 +8,7 @@ import { InputError } from '../errors.js';
 import type { CsvTable } from '../io/read-results.js';
 import { readCsvTable } from '../io/read-results.js';
 import type { DensityColumn } from '../density/input.js';
-import { densityInputFromTable } from '../density/input.js';
+import { DENSITY_COLUMNS, densityInputFromTable } from '../density/input.js';
 import { nettleton } from '../density/nettleton.js';
 import { parasnis } from '../density/parasnis.js';
 import { UNIT_DENSITY_KG_M3 } from '../constants.js';
@@ -21,8 +21,8 @@ export const REPORT_DENSITY_RANGE = { fromKgM3: 1800, toKgM3: 3000, stepKgM3: 10
 const MIN_DENSITY_STATIONS = 4;
 
 export interface LoadOptions {
-  /** canonical name → name in the file (parsed --columns). */
-  mapping?: Partial<Record<DensityColumn, string>>;
+  /** canonical name → name in the file (the parsed --columns of talus reduce, e.g. { id: 'STN' }). */
+  mapping?: Readonly<Record<string, string>>;
   /** Prefer these map coordinates when the file has both lon/lat and x/y. */
   preferCoords?: MapCoords;
   title?: string;
@@ -43,7 +43,7 @@ export function loadReportData(resultsPath: string, opts: LoadOptions = {}): Rep
       throw new InputError(`--columns maps ${canon} to "${name}", which is not a column; columns present: ${table.header.join(', ')}`, { file: resultsPath, line: 1, field: name });
     }
   }
-  const fileName = (canon: string): string => (mapping as Record<string, string>)[canon] ?? canon;
+  const fileName = (canon: string): string => mapping[canon] ?? canon;
   const canonical = new Map<string, string>(Object.entries(mapping).map(([canon, name]) => [name, canon]));
   const need = (canon: string, why: string): number => {
     const i = table.header.indexOf(fileName(canon));
@@ -118,8 +118,10 @@ function numericColumns(table: CsvTable, canonical: ReadonlyMap<string, string>,
 }
 
 /** Nettleton and Parasnis estimates for the report, or notes saying why they are missing. */
-function densityView(table: CsvTable, mapping: Partial<Record<DensityColumn, string>>): DensityView {
+function densityView(table: CsvTable, fullMapping: Readonly<Record<string, string>>): DensityView {
   const notes: string[] = [];
+  const mapping: Partial<Record<DensityColumn, string>> = {};
+  for (const [k, v] of Object.entries(fullMapping)) if (k in DENSITY_COLUMNS) mapping[k as DensityColumn] = v;
   let input;
   try {
     input = densityInputFromTable(table, mapping);

@@ -6,7 +6,6 @@ import { writeFileSync } from 'node:fs';
 import { InputError, isInputError } from '../errors.js';
 import { openDem } from '../dem/geotiff-open.js';
 import { isEmptyGrid, readDemWindow } from '../dem/read-window.js';
-import type { DensityColumn } from '../density/input.js';
 import { buildReport } from './build-report.js';
 import { loadReportData } from './load-report-data.js';
 import type { ReportData } from './report-data.js';
@@ -16,8 +15,8 @@ import { extentOf } from './charts/chart-frame.js';
 export interface WriteReportOptions {
   /** A GeoTIFF DEM to draw as shaded relief under the station maps. */
   demPath?: string;
-  /** canonical name → column name in the results file (the parsed --columns mapping). */
-  columns?: Partial<Record<DensityColumn, string>>;
+  /** canonical name → column name in the results file (the parsed --columns of talus reduce). */
+  columns?: Readonly<Record<string, string>>;
   title?: string;
   /** Width limit of the relief image, px (default 600). */
   reliefMaxWidthPx?: number;

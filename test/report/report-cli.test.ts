@@ -71,6 +71,18 @@ describe('talus report', () => {
     expect(io2.err()).toContain('STATION');
   });
 
+  it('--columns takes the mapping of talus reduce, including the legacy TC column', async () => {
+    const csv = syntheticResultsCsv({ n: 30 }).replace(',legacy_tc_mgal,', ',OLDTC,');
+    const p = join(dir, 'oldtc.csv');
+    writeFileSync(p, csv);
+    const without = join(dir, 'oldtc-without.html');
+    const withMap = join(dir, 'oldtc-with.html');
+    expect(await runCli(['report', p, '-o', without], memoryIo())).toBe(0);
+    expect(await runCli(['report', p, '-o', withMap, '--columns', 'legacy_tc_mgal=OLDTC'], memoryIo())).toBe(0);
+    expect(readFileSync(without, 'utf8')).not.toContain('data-chart="legacy-tc"');
+    expect(readFileSync(withMap, 'utf8')).toContain('data-chart="legacy-tc"');
+  });
+
   it('a non-numeric value in a results column is an input error naming line and column', async () => {
     const lines = syntheticResultsCsv({ n: 10 }).split('\n');
     const header = (lines[0] as string).split(',');
