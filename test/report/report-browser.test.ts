@@ -27,13 +27,13 @@ interface ChartCheck {
   marksHeight: number;
   texts: number;
   clippedTexts: string[];
-  overlappingTicks: string[];
+  overlappingTexts: string[];
 }
 
 /**
  * Runs in the page (a string, so the Node-side type check needs no DOM types): per chart, its
- * size, its marks and their bounding box, texts reaching outside the chart, and pairs of tick
- * labels on one axis whose boxes intersect.
+ * size, its marks and their bounding box, texts reaching outside the chart, and pairs of labels
+ * (title, legend, ticks, axis labels) whose boxes intersect.
  */
 const MEASURE_CHARTS_JS = `[...document.querySelectorAll('svg.chart')].map((svg) => {
   const box = svg.getBoundingClientRect();
@@ -45,15 +45,14 @@ const MEASURE_CHARTS_JS = `[...document.querySelectorAll('svg.chart')].map((svg)
     if (r.width === 0) continue;
     if (r.left < box.left - 1 || r.right > box.right + 1 || r.top < box.top - 1 || r.bottom > box.bottom + 1) clippedTexts.push(t.textContent);
   }
-  const overlappingTicks = [];
-  for (const axis of svg.querySelectorAll('g.axis')) {
-    const rs = [...axis.querySelectorAll(':scope > text:not(.axis-label)')].map((t) => ({ r: t.getBoundingClientRect(), s: t.textContent }));
-    for (let i = 0; i < rs.length; i++)
-      for (let j = i + 1; j < rs.length; j++) {
-        const a = rs[i].r, b = rs[j].r;
-        if (a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom) overlappingTicks.push(rs[i].s + ' / ' + rs[j].s);
-      }
-  }
+  // every text outside the plotted marks: title, legend, tick and axis labels, colour bar
+  const overlappingTexts = [];
+  const rs = [...svg.querySelectorAll('text')].filter((t) => t.closest('g.marks') === null).map((t) => ({ r: t.getBoundingClientRect(), s: t.textContent }));
+  for (let i = 0; i < rs.length; i++)
+    for (let j = i + 1; j < rs.length; j++) {
+      const a = rs[i].r, b = rs[j].r;
+      if (a.width > 0 && b.width > 0 && a.left < b.right && b.left < a.right && a.top < b.bottom && b.top < a.bottom) overlappingTexts.push(rs[i].s + ' / ' + rs[j].s);
+    }
   return {
     id: svg.getAttribute('data-chart'),
     width: box.width,
@@ -63,7 +62,7 @@ const MEASURE_CHARTS_JS = `[...document.querySelectorAll('svg.chart')].map((svg)
     marksHeight: mb.height,
     texts: svg.querySelectorAll('text').length,
     clippedTexts,
-    overlappingTicks,
+    overlappingTexts,
   };
 })`;
 
@@ -119,7 +118,7 @@ describe('report in headless Chromium', () => {
         expect(c.marksHeight, c.id).toBeGreaterThan(0);
         expect(c.texts, `${c.id}: ticks and labels drawn`).toBeGreaterThan(5);
         expect(c.clippedTexts, `${c.id}: text outside the chart`).toEqual([]);
-        expect(c.overlappingTicks, `${c.id}: overlapping tick labels`).toEqual([]);
+        expect(c.overlappingTexts, `${c.id}: overlapping labels`).toEqual([]);
       }
       // the relief PNGs decode in the browser: an SVG <image> that failed would have an empty box
       const reliefBoxes = (await page.evaluate(`[...document.querySelectorAll('image.relief')].map((i) => i.getBBox().width)`)) as number[];

@@ -9,7 +9,7 @@ import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 
 /** Every chart the full synthetic results must produce (data-chart ids). */
-export const EXPECTED_CHARTS: readonly string[] = ['map-cba', 'map-tc', 'tc-height', 'misfit-hist', 'misfit-map', 'nettleton', 'parasnis', 'legacy-tc', 'legacy-change'];
+export const EXPECTED_CHARTS: readonly string[] = ['map-cba', 'map-tc', 'tc-height', 'misfit-hist', 'misfit-map', 'nettleton', 'parasnis', 'cba-densities', 'legacy-tc', 'legacy-change'];
 
 /** 2πG·1000 kg/m^3 in mGal per metre (the Bouguer slab for unit density). */
 const SLAB_UNIT_MGAL_PER_M = 0.041928;
@@ -63,6 +63,8 @@ export function syntheticResultsCsv(opts: SyntheticOptions = {}): string {
     'terrain_corr_unit_mgal',
     'simple_bouguer_mgal',
     'complete_bouguer_mgal',
+    'complete_bouguer_mgal_d2200',
+    'complete_bouguer_mgal_d2400',
     'dem_coverage',
     ...(legacy ? ['delta_dem_mgal', 'delta_curvature_mgal', 'delta_far_zone_mgal'] : []),
     'flags',
@@ -103,6 +105,7 @@ export function syntheticResultsCsv(opts: SyntheticOptions = {}): string {
       sba.toFixed(3),
       // a station outside the DEM has no CBA (empty = not available)
       i === n - 1 ? '' : cba.toFixed(3),
+      ...[2.2, 2.4].map((r) => (i === n - 1 ? '' : (faa - r * bu + r * tcUnit).toFixed(3))),
       (i === 7 ? 0.93 : 1).toFixed(3),
       ...(legacy ? [((rnd() - 0.4) * 0.3).toFixed(3), (0.02 + rnd() * 0.03).toFixed(3), (tc * 0.08 + (rnd() - 0.5) * 0.05).toFixed(3)] : []),
       flags.join(';'),

@@ -27,6 +27,8 @@ export interface FrameSpec {
   equalAspect?: number;
   /** Approximate tick count per axis. */
   tickCount?: number;
+  /** Extra space above the plot (a legend row under the title), px. */
+  topPad?: number;
   /** Categorical x axis: category i is centred at x = i + 0.5 (xDomain is then [0, n]). */
   xCategories?: readonly string[];
 }
@@ -61,7 +63,7 @@ export function createFrame(spec: FrameSpec): Frame {
   let yt = niceTicks(spec.yDomain[0], spec.yDomain[1], target);
   const yLabelChars = Math.max(...yt.ticks.map((t) => tickLabel(t, yt.step).length));
   const left = Math.round(30 + yLabelChars * CHAR_W + 8);
-  const top = 34;
+  const top = 34 + (spec.topPad ?? 0);
   const bottom = 50;
   const plotHeight = height - top - bottom;
   // the last x label is centred on the right edge: leave room for half of it

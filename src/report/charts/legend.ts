@@ -10,6 +10,22 @@ export interface LegendItem {
 
 const CHAR_W = 6.2; // px per character at 11 px (estimate)
 
+/** Estimated width of a legend row, px. */
+export function legendWidth(items: readonly LegendItem[]): number {
+  return items.reduce((w, it) => w + it.label.length * CHAR_W + 36, 0);
+}
+
+/** Title font: 13 px bold, about 7.4 px per character (estimate). */
+const TITLE_CHAR_W = 7.4;
+
+/** Whether the legend fits beside the title in a chart of `width` px, or needs its own row. */
+export function legendNeedsOwnRow(title: string, items: readonly LegendItem[], width: number): boolean {
+  return items.length > 0 && 70 + title.length * TITLE_CHAR_W + 24 + legendWidth(items) > width - 16;
+}
+
+/** Extra top margin for a legend on its own row, px. */
+export const LEGEND_ROW_PX = 18;
+
 export function legendRow(items: readonly LegendItem[], rightX: number, y: number): string {
   let x = rightX;
   const parts: string[] = [];

@@ -1,7 +1,7 @@
 /** Scatter plot of one or more point series, with an optional fitted line and/or 1:1 line. */
 import { esc, px } from '../escape.js';
 import { createFrame, emptyChart, extentOf } from './chart-frame.js';
-import { legendRow, seriesColour } from './legend.js';
+import { LEGEND_ROW_PX, legendNeedsOwnRow, legendRow, seriesColour } from './legend.js';
 import type { LegendItem } from './legend.js';
 
 export interface ScatterSeries {
@@ -37,13 +37,29 @@ export function scatterChart(spec: ScatterSpec): string {
     xd = both;
     yd = both;
   }
-  const f = createFrame({ id: spec.id, title: spec.title, xLabel: spec.xLabel, yLabel: spec.yLabel, xDomain: xd, yDomain: yd, ...(spec.identity ? { equalAspect: 1 } : {}), width: spec.width ?? (spec.identity ? 560 : 640), height: spec.height ?? (spec.identity ? 500 : 400) });
   const legend: LegendItem[] = [];
+  if (spec.identity) legend.push({ label: '1:1', colour: '#444', kind: 'dash' });
+  if (spec.series.length > 1 || spec.line || spec.identity) spec.series.forEach((s, i) => legend.push({ label: s.label, colour: s.colour ?? seriesColour(i), kind: 'point' }));
+  const hasLine = spec.line !== undefined && Number.isFinite(spec.line.slope) && Number.isFinite(spec.line.intercept);
+  if (spec.line && hasLine) legend.push({ label: spec.line.label, colour: '#d55e00', kind: 'line' });
+  const width = spec.width ?? (spec.identity ? 560 : 640);
+  const ownRow = legendNeedsOwnRow(spec.title, legend, width);
+  const f = createFrame({
+    id: spec.id,
+    title: spec.title,
+    xLabel: spec.xLabel,
+    yLabel: spec.yLabel,
+    xDomain: xd,
+    yDomain: yd,
+    ...(spec.identity ? { equalAspect: 1 } : {}),
+    ...(ownRow ? { topPad: LEGEND_ROW_PX } : {}),
+    width,
+    height: spec.height ?? (spec.identity ? 500 : 400),
+  });
   const marks: string[] = [];
   if (spec.identity) {
     const [a, b] = [Math.max(f.xDomain[0], f.yDomain[0]), Math.min(f.xDomain[1], f.yDomain[1])];
     marks.push(`<line class="ref-line" x1="${px(f.sx(a))}" y1="${px(f.sy(a))}" x2="${px(f.sx(b))}" y2="${px(f.sy(b))}" stroke="#444" stroke-width="1.2" stroke-dasharray="5 3"/>`);
-    legend.push({ label: '1:1', colour: '#444', kind: 'dash' });
   }
   spec.series.forEach((s, i) => {
     const colour = s.colour ?? seriesColour(i);
@@ -55,17 +71,16 @@ export function scatterChart(spec: ScatterSpec): string {
       if (Number.isFinite(x) && Number.isFinite(y)) dots.push(`<circle cx="${px(f.sx(x))}" cy="${px(f.sy(y))}" r="3"/>`);
     }
     marks.push(`<g class="points" fill="${esc(colour)}" fill-opacity="0.75" stroke="#fff" stroke-width="0.4">${dots.join('')}</g>`);
-    if (spec.series.length > 1 || spec.line || spec.identity) legend.push({ label: s.label, colour, kind: 'point' });
   });
-  if (spec.line && Number.isFinite(spec.line.slope) && Number.isFinite(spec.line.intercept)) {
+  if (spec.line && hasLine) {
     const { slope, intercept } = spec.line;
     const [x0, x1] = f.xDomain;
     marks.push(
       `<line class="fit-line" x1="${px(f.sx(x0))}" y1="${px(f.sy(intercept + slope * x0))}" x2="${px(f.sx(x1))}" y2="${px(f.sy(intercept + slope * x1))}" stroke="#d55e00" stroke-width="2"/>`,
     );
-    legend.push({ label: spec.line.label, colour: '#d55e00', kind: 'line' });
   }
-  return f.open() + `<g class="marks" clip-path="url(#${esc(f.clipId)})">${marks.join('')}</g>` + legendRow(legend, f.left + f.plotWidth, 20) + f.close();
+  const legendY = ownRow ? 20 + LEGEND_ROW_PX : 20;
+  return f.open() + `<g class="marks" clip-path="url(#${esc(f.clipId)})">${marks.join('')}</g>` + legendRow(legend, f.left + f.plotWidth, legendY) + f.close();
 }
 
 function countPairs(s: ScatterSeries): number {

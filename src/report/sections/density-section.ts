@@ -2,6 +2,8 @@
 import { esc, fmt } from '../escape.js';
 import { lineChart } from '../charts/line-chart.js';
 import { scatterChart } from '../charts/scatter-chart.js';
+import { column } from '../report-data.js';
+import type { ReportData } from '../report-data.js';
 import { figure } from '../section-types.js';
 import type { ReportSection, SectionResult } from '../section-types.js';
 
@@ -10,7 +12,9 @@ export const densitySection: ReportSection = {
   title: 'Density estimates',
   render: (data): SectionResult => {
     const d = data.density;
+    const byDensity = densityAnomalies(data);
     if (!d || (!d.nettleton && !d.parasnis)) {
+      if (byDensity) return { html: byDensity };
       return { omitted: d && d.notes.length > 0 ? d.notes.join('; ') : 'no density estimate was computed' };
     }
     const parts: string[] = [];
@@ -51,6 +55,32 @@ export const densitySection: ReportSection = {
     }
     const table = `<table class="stats"><caption>Estimates</caption><thead><tr><th>Method</th><th>density (kg/m³)</th><th>std. error (kg/m³)</th><th>n</th><th>fit</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
     const notes = d.notes.length > 0 ? `<ul class="notes">${d.notes.map((n) => `<li>${esc(n)}</li>`).join('')}</ul>` : '';
-    return { html: table + notes + parts.join('') };
+    return { html: table + notes + parts.join('') + (byDensity ?? '') };
   },
 };
+
+const EXTRA_DENSITY = /^complete_bouguer_mgal_d(\d+(?:\.\d+)?)$/;
+
+/** CBA at each density the run wrote (complete_bouguer_mgal_d<density>) against height, or undefined. */
+function densityAnomalies(data: ReportData): string | undefined {
+  const h = column(data, 'height_m');
+  if (!h) return undefined;
+  const series = [...data.stations.columns.keys()]
+    .map((name) => ({ name, m: EXTRA_DENSITY.exec(name) }))
+    .filter((e): e is { name: string; m: RegExpExecArray } => e.m !== null)
+    .map((e) => ({ density: Number(e.m[1]), values: column(data, e.name) }))
+    .filter((e): e is { density: number; values: Float64Array } => e.values !== undefined)
+    .sort((a, b) => a.density - b.density);
+  if (series.length === 0) return undefined;
+  const main = column(data, 'complete_bouguer_mgal');
+  const mainDensity = data.provenance?.parameters;
+  const rho = typeof mainDensity === 'object' && mainDensity !== null ? (mainDensity as Record<string, unknown>).densityKgM3 : undefined;
+  const all = [
+    ...series.map((s) => ({ label: `${s.density} kg/m³`, x: h, y: s.values })),
+    ...(main ? [{ label: typeof rho === 'number' ? `${rho} kg/m³ (main)` : 'main density', x: h, y: main }] : []),
+  ];
+  return figure(
+    scatterChart({ id: 'cba-densities', title: 'CBA against height at each density of the run', xLabel: 'Station height (m)', yLabel: 'Complete Bouguer anomaly (mGal)', series: all }),
+    'At the right density the anomaly shows no trend with height; too low a density leaves a positive trend, too high a negative one.',
+  );
+}
