@@ -70,6 +70,34 @@ describe('buildReport', () => {
     expect(html).toContain('No provenance file');
   });
 
+  it('without the unit-density columns: no estimates, a note naming the column, the per-density chart still drawn', () => {
+    const csv = syntheticResultsCsv({ n: 30 }).replace(',bouguer_unit_mgal,', ',bouguer_unit_old,');
+    const p = join(dir, 'nounit.csv');
+    writeFileSync(p, csv);
+    const html = buildReport(loadReportData(p));
+    expect(chartIds(html)).not.toContain('parasnis');
+    expect(chartIds(html)).not.toContain('nettleton');
+    expect(chartIds(html)).toContain('cba-densities');
+    expect(html).toMatch(/<li>density estimates need the unit-density columns: [^<]*bouguer_unit_mgal/);
+  });
+
+  it('without estimates or per-density columns the density section is listed as not shown, with the reason', () => {
+    const header = syntheticResultsCsv({ n: 30 }).split('\n')[0] as string;
+    const drop = new Set(['bouguer_unit_mgal', 'complete_bouguer_mgal_d2200', 'complete_bouguer_mgal_d2400'].map((c) => header.split(',').indexOf(c)));
+    const csv = syntheticResultsCsv({ n: 30 })
+      .split('\n')
+      .map((line) => line.split(',').filter((_, i) => !drop.has(i)).join(','))
+      .join('\n');
+    const p = join(dir, 'nodensity.csv');
+    writeFileSync(p, csv);
+    expect(buildReport(loadReportData(p))).toMatch(/Density estimates — not shown: density estimates need the unit-density columns: [^<]*bouguer_unit_mgal/);
+  });
+
+  it('is deterministic: the same results give the same HTML byte for byte', () => {
+    const p = writeSyntheticResults(dir, { name: 'twice.csv' });
+    expect(buildReport(loadReportData(p))).toBe(buildReport(loadReportData(p)));
+  });
+
   it('maps lon/lat stations with degree axes', () => {
     const html = buildReport(loadReportData(writeSyntheticResults(dir, { name: 'geo.csv', coords: 'lonlat' })));
     expect(html).toContain('Longitude (°E)');

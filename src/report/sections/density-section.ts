@@ -14,7 +14,7 @@ export const densitySection: ReportSection = {
     const d = data.density;
     const byDensity = densityAnomalies(data);
     if (!d || (!d.nettleton && !d.parasnis)) {
-      if (byDensity) return { html: byDensity };
+      if (byDensity) return { html: notesList(d?.notes ?? []) + byDensity };
       return { omitted: d && d.notes.length > 0 ? d.notes.join('; ') : 'no density estimate was computed' };
     }
     const parts: string[] = [];
@@ -54,10 +54,13 @@ export const densitySection: ReportSection = {
       rows.push(`<tr><th scope="row">Parasnis</th><td>${fmt(p.densityKgM3, 0)}</td><td>${fmt(p.stderrKgM3, 0)}</td><td>${p.n}</td><td>r² = ${fmt(p.r2, 3)}</td></tr>`);
     }
     const table = `<table class="stats"><caption>Estimates</caption><thead><tr><th>Method</th><th>density (kg/m³)</th><th>std. error (kg/m³)</th><th>n</th><th>fit</th></tr></thead><tbody>${rows.join('')}</tbody></table>`;
-    const notes = d.notes.length > 0 ? `<ul class="notes">${d.notes.map((n) => `<li>${esc(n)}</li>`).join('')}</ul>` : '';
-    return { html: table + notes + parts.join('') + (byDensity ?? '') };
+    return { html: table + notesList(d.notes) + parts.join('') + (byDensity ?? '') };
   },
 };
+
+function notesList(notes: readonly string[]): string {
+  return notes.length > 0 ? `<ul class="notes">${notes.map((n) => `<li>${esc(n)}</li>`).join('')}</ul>` : '';
+}
 
 const EXTRA_DENSITY = /^complete_bouguer_mgal_d(\d+(?:\.\d+)?)$/;
 
