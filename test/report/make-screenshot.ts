@@ -6,7 +6,7 @@
  *
  * Without REPORT.html it writes a report of the invented survey of synthetic-results.ts over the
  * synthetic DEM fixture first. OUT.png defaults to docs/report-screenshot.png; the sections
- * default to the anomaly map and the density estimates.
+ * default to the two maps, TC against height and the legacy comparison, two to a row.
  */
 import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -26,13 +26,13 @@ async function main(argv: string[]): Promise<void> {
     await writeReport(writeSyntheticResults(dir), report, { demPath: new URL('../fixtures/dem/plain-f32.tif', import.meta.url).pathname, title: 'talus report: invented survey' });
   }
   out ??= new URL('../../docs/report-screenshot.png', import.meta.url).pathname;
-  if (sections.length === 0) sections = ['map-cba', 'density'];
+  if (sections.length === 0) sections = ['map-cba', 'map-tc', 'tc-height', 'legacy'];
   const browser = await chromium.launch({ executablePath: CHROMIUM, args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--no-first-run'] });
   try {
     const page = await browser.newPage({ viewport: { width: 1340, height: 900 } });
     await page.goto(pathToFileURL(report).href);
-    // lay the chosen sections out side by side for one compact picture
-    await page.addStyleTag({ content: `main { max-width: none; display: flex; gap: 16px; align-items: flex-start; } main > section { flex: 1 1 0; min-width: 0; } header nav, footer { display: none; }` });
+    // lay the chosen sections out two to a row for one compact picture
+    await page.addStyleTag({ content: `main { max-width: none; display: grid; grid-template-columns: 1fr 1fr; gap: 0 16px; } main > section { min-width: 0; } footer { display: none; }` });
     const keep = JSON.stringify(sections);
     await page.evaluate(`for (const s of document.querySelectorAll('main > section')) if (!${keep}.includes(s.id)) s.remove();`);
     const main = await page.$('main');
