@@ -3,6 +3,7 @@ import type { CliIo } from '../io.js';
 import { registerDensityCommand } from './density.js';
 import { registerReportCommand } from './report.js';
 import { registerInspect } from './inspect.js';
+import { registerReduceCommand } from './reduce.js';
 
 /** Each subcommand lives in its own file and registers itself here. */
 export function registerCommands(program: Command, io: CliIo): void {
@@ -11,4 +12,5 @@ export function registerCommands(program: Command, io: CliIo): void {
   registerDensityCommand(program, io);
   registerReportCommand(program, io);
   registerInspect(program, io);
+  registerReduceCommand(program, io);
 }
