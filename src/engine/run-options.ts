@@ -50,4 +50,6 @@ export interface ReduceSummary {
   provenanceJson: string;
   qcText: string;
   warnings: string[];
+  /** The HTML report, when one was asked for. */
+  reportHtml?: string;
 }

@@ -7,6 +7,7 @@ import { parseColumnMapping } from '../../stations/columns.js';
 import { CAP_RADIUS_M, DEFAULT_DENSITY_KG_M3 } from '../../constants.js';
 import { availableParallelism } from 'node:os';
 import { InputError } from '../../errors.js';
+import { writeReport } from '../../report/write-report.js';
 import {
   parseChoice,
   parseCount,
@@ -49,6 +50,7 @@ interface RawOptions {
   tcOutlierLimit: string;
   legacyTcLimit: string;
   json?: boolean;
+  report?: string | boolean;
   progress: boolean;
 }
 
@@ -100,6 +102,7 @@ export function formatSummary(s: ReduceSummary): string {
     ...(s.warnings.length > 10 ? [`warning: ... and ${s.warnings.length - 10} more (all in the provenance file)`] : []),
     `results:    ${s.outputCsv}`,
     `provenance: ${s.provenanceJson}`,
+    ...(s.reportHtml ? [`report:     ${s.reportHtml}`] : []),
   ];
   return lines.join('\n') + '\n';
 }
@@ -143,6 +146,7 @@ export function registerReduceCommand(program: Command, io: CliIo): void {
     .option('--legacy-tc-limit <mGal>', 'flag legacy_tc_change when |new - legacy TC| exceeds this, mGal', '1')
     .option('--no-progress', 'do not draw the progress bar')
     .option('--json', 'print one JSON summary line at the end instead of the text summary')
+    .option('--report [file.html]', 'also write the HTML report (default: <out> with .html)')
     .addHelpText(
       'after',
       `
@@ -163,6 +167,15 @@ complete_bouguer_mgal, complete_bouguer_mgal_d<density>, tc_inner_mgal (< 0.895 
       process.once('SIGINT', onSigint);
       try {
         const summary = await runReduce(opts, io, controller.signal);
+        if (raw.report !== undefined && raw.report !== false) {
+          const reportPath = typeof raw.report === 'string' ? raw.report : opts.outPath.replace(/\.csv$/i, '') + '.html';
+          const rep = await writeReport(opts.outPath, reportPath, {
+            demPath: opts.demPaths[0] as string,
+            ...(opts.columns ? { columns: opts.columns } : {}),
+          });
+          summary.warnings.push(...rep.notes.map((n) => `report: ${n}`));
+          summary.reportHtml = rep.outPath;
+        }
         if (raw.json) {
           io.stdout.write(
             JSON.stringify({
@@ -173,6 +186,7 @@ complete_bouguer_mgal, complete_bouguer_mgal_d<density>, tc_inner_mgal (< 0.895 
               stationsPerS: +summary.stationsPerS.toFixed(1),
               output: summary.outputCsv,
               provenance: summary.provenanceJson,
+              ...(summary.reportHtml ? { report: summary.reportHtml } : {}),
             }) + '\n',
           );
         } else {
