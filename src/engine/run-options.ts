@@ -2,6 +2,11 @@
 import type { NormalFormula } from '../reduction/normal-gravity.js';
 import type { FreeAirOrder } from '../reduction/free-air.js';
 import type { LengthUnit } from '../units.js';
+import type { GravityConvention } from '../legacy/gravity-datum.js';
+import type { FormulaSet } from '../legacy/formula-set.js';
+import type { HeightType } from '../legacy/height-type.js';
+import type { LegacyTcRange } from '../legacy/legacy-tc-range.js';
+import type { LegacyColumnKey } from './legacy-columns.js';
 
 export interface ReduceOptions {
   stationsPath: string;
@@ -32,6 +37,21 @@ export interface ReduceOptions {
   belowTerrainM: number;
   tcOutlierLimitMgal: number;
   legacyTcLimitMgal: number;
+  /** How the gobs_mgal column is stored (datum, units, removed constant); converted to IGSN71 mGal. */
+  gravity: GravityConvention;
+  /** File columns of the legacy inputs (datum_offset_mgal, legacy_fa_mgal, legacy_cba_mgal) mapped by --columns. */
+  legacyColumns: Partial<Record<LegacyColumnKey, string>>;
+  /** The formulas the legacy anomalies were reduced with; enables the legacy columns. */
+  legacyFormulas?: FormulaSet;
+  /** |printed - recomputed| legacy anomaly beyond which legacy_mismatch is flagged, mGal. */
+  legacyToleranceMgal: number;
+  /** Annulus the legacy TC covered: a second terrain pass over it (terrain_corr_range_mgal). */
+  legacyTcRange?: LegacyTcRange;
+  stationHeightType: HeightType;
+  /** Height type of the fine and far-zone DEMs. */
+  demHeightType: HeightType;
+  /** Geoid undulation grid (GeoTIFF, m) for converting between height types. */
+  geoidPath?: string;
   /** Draw a progress bar (when stderr is a terminal). */
   progress: boolean;
   /** The command line as typed, for the provenance record. */

@@ -26,6 +26,19 @@ import { makeProgress } from './progress.js';
 import { reduceStation, type ReductionSettings } from './reduction-terms.js';
 import { stationFlags } from './station-flags.js';
 import type { ReduceOptions, ReduceSummary } from './run-options.js';
+import { suspectHeightTypeMismatch } from '../legacy/height-type.js';
+import { findLegacyColumn, readLegacyColumn } from './legacy-columns.js';
+import { runGravity } from './legacy-gravity.js';
+import { OUTSIDE_GEOID_FLAG, stationHeights } from './legacy-heights.js';
+import { checkRangeWithinRadius, rangeTerrain, type RangeTerrain } from './legacy-tc-pass.js';
+import { legacyOutputs } from './legacy-outputs.js';
+
+/** The provenance record of a run: the common fields plus the gravity conversions, heights and legacy comparison. */
+interface RunProvenance extends Provenance {
+  conversions: { gravity: unknown[] };
+  heights: Record<string, unknown>;
+  legacy: Record<string, unknown>;
+}
 
 /** Largest cell side of a grid in metres near latitude latDeg. */
 function cellSizeM(g: DemGrid, latDeg: number): number {
@@ -78,11 +91,25 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
       { file: table.source },
     );
   }
+  if (o.legacyTcRange) checkRangeWithinRadius(o.legacyTcRange, o.radiusM);
   const active = new Uint8Array(n);
   for (let i = 0; i < n; i++) {
     const ok = Number.isFinite(table.lonDeg[i] as number) && Number.isFinite(table.latDeg[i] as number) && Number.isFinite(table.heightM[i] as number);
     active[i] = ok ? 1 : 0;
   }
+  const offsetCol = findLegacyColumn(table, 'datum_offset_mgal', o.legacyColumns);
+  const gravity = runGravity(
+    table.gobsMgal,
+    o.gravity,
+    offsetCol >= 0 ? readLegacyColumn(table, offsetCol, 'datum offset') : null,
+    table.header[offsetCol],
+  );
+  const heights = await stationHeights(
+    { stationHeightType: o.stationHeightType, demHeightType: o.demHeightType, keepGoing: o.keepGoing, ...(o.geoidPath ? { geoidPath: o.geoidPath } : {}) },
+    table,
+    active,
+  );
+  for (const i of heights.outsideGeoid) active[i] = 0;
   const fine = await loadDem(o.demPaths, table, active, o.radiusM, { ...(o.demCrs ? { demCrs: o.demCrs } : {}), demUnits: o.demUnits }, 'DEM');
   warnings.push(...fine.gaps.map((g) => `DEM mosaic gap: ${g}`));
   const far = o.farDemPath
@@ -123,7 +150,7 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
     stations.farY.set(far.y);
   }
   stations.latDeg.set(table.latDeg);
-  stations.heightM.set(table.heightM);
+  stations.heightM.set(heights.terrainM);
   stations.active.set(active);
   const results = sharedFloat64(n * RESULT_WIDTH);
   const tTerrain = performance.now();
@@ -135,6 +162,17 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
     ...(signal ? { signal } : {}),
   });
   progress.finish();
+  let range: RangeTerrain | null = null;
+  if (o.legacyTcRange) {
+    const rangeProgress = makeProgress(io, n, 'legacy TC range', o.progress);
+    range = await rangeTerrain(ctx.fine, ctx.far, plan, o.legacyTcRange, stations, {
+      workers: o.workers,
+      batchSize: o.batchSize,
+      onProgress: (d) => rangeProgress.update(d),
+      ...(signal ? { signal } : {}),
+    });
+    rangeProgress.finish();
+  }
   const terrainTimeS = (performance.now() - tTerrain) / 1000;
 
   // reduction
@@ -175,7 +213,7 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
     if (active[i] !== 1) continue;
     const base = i * RESULT_WIDTH;
     const tcUnit = results[base + TR.tcUnitMgal] as number;
-    const r = reduceStation(settings, table.latDeg[i] as number, table.heightM[i] as number, table.gobsMgal[i] as number, tcUnit, table.innerTcMgal[i] as number);
+    const r = reduceStation(settings, table.latDeg[i] as number, heights.reductionM[i] as number, gravity.igsn71Mgal[i] as number, tcUnit, table.innerTcMgal[i] as number);
     v(c.demH)[i] = results[base + TR.demHeightM] as number;
     v(c.misfit)[i] = results[base + TR.misfitM] as number;
     v(c.normal)[i] = r.normalMgal;
@@ -201,11 +239,55 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
     }
   }
   const flags = stationFlags(table, results, v(c.tc), v(c.misfit), o);
-  const columns: OutputColumn[] = [...Object.values(c), ...extra, zones.inner, zones.middle, zones.outer, coverage];
+  const heightWarning = suspectHeightTypeMismatch(v(c.misfit));
+  if (heightWarning) warnings.push(heightWarning);
+  const tcAdded = new Float64Array(n);
+  for (let i = 0; i < n; i++) tcAdded[i] = (v(c.tc)[i] as number) + (settings.useInnerTc ? (table.innerTcMgal[i] as number) : 0);
+  const rangeTcMgal = range ? range.tcUnitMgal.map((t) => t * scale) : null;
+  const printed = (key: 'legacy_fa_mgal' | 'legacy_cba_mgal'): Float64Array =>
+    readLegacyColumn(table, findLegacyColumn(table, key, o.legacyColumns), 'a legacy anomaly');
+  const legacy = legacyOutputs(
+    o,
+    {
+      latDeg: table.latDeg,
+      oldGobsMgal: gravity.storedDatumMgal,
+      oldHeightM: table.heightM,
+      legacyTcMgal: table.legacyTcMgal,
+      printedFaMgal: printed('legacy_fa_mgal'),
+      printedCbaMgal: printed('legacy_cba_mgal'),
+      newGobsMgal: gravity.igsn71Mgal,
+      newHeightM: heights.reductionM,
+      newTcMgal: tcAdded,
+      rangeTcMgal,
+      active,
+    },
+    v(c.cba),
+    range ? range.plan : null,
+  );
+  for (const i of heights.outsideGeoid) (flags.perStation[i] as string[]).push(OUTSIDE_GEOID_FLAG);
+  legacy.flags.forEach((codes, i) => (flags.perStation[i] as string[]).push(...codes));
+  for (const code of [OUTSIDE_GEOID_FLAG, ...new Set(legacy.flags.flat())]) {
+    const count = flags.perStation.filter((f) => f.includes(code)).length;
+    if (count > 0) flags.counts[code] = count;
+  }
+  if (heights.outsideGeoid.length > 0)
+    legacy.summaryLines.unshift(`${OUTSIDE_GEOID_FLAG}: ${heights.outsideGeoid.length} stations not covered by the geoid grid (not computed)`);
+  const qcText = [flags.summaryText, ...legacy.summaryLines].join('\n');
+  const columns: OutputColumn[] = [
+    ...gravity.columns,
+    ...heights.columns,
+    ...Object.values(c),
+    ...extra,
+    zones.inner,
+    zones.middle,
+    zones.outer,
+    coverage,
+    ...legacy.columns,
+  ];
   const csv = resultsCsv(table.header, table.rows, columns, flags.perStation);
   const provenancePath = `${o.outPath}.provenance.json`;
   const runTimeS = (performance.now() - t0) / 1000;
-  const provenance: Provenance = {
+  const provenance: RunProvenance = {
     talusVersion: talusVersion(),
     commandLine: o.commandLine,
     createdUtc: new Date().toISOString(),
@@ -217,7 +299,11 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
       freeAir: o.freeAirOrder === 2 ? 'second order, Hinze et al. 2005' : 'first order, 0.3086 mGal/m',
       bouguer: o.bouguer === 'cap' ? `spherical cap to ${o.capRadiusM} m, LaFehr 1991` : 'infinite slab 2 pi G rho h',
       terrain: 'Bullard C relative to the spherical cap at station height, Earth curvature included, to --radius',
+      ...(o.legacyTcRange ? { terrainRange: 'a second terrain pass over --legacy-tc-range (inside R1 skipped, ends at R2)' } : {}),
     },
+    conversions: { gravity: gravity.conversions },
+    heights: heights.record,
+    legacy: legacy.record,
     stations: { file: o.stationsPath, sha256: await sha256File(o.stationsPath), rows: n },
     dems: [...(await demProvenance('fine', fine, meanLat)), ...(far ? await demProvenance('far', far, meanLat) : [])],
     zonePlan: { ...plan },
@@ -238,7 +324,7 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
     kernelEvaluationsPerStation: computed > 0 ? kernelEvals / computed : 0,
     outputCsv: o.outPath,
     provenanceJson: provenancePath,
-    qcText: flags.summaryText,
+    qcText,
     warnings,
   };
 }

@@ -38,6 +38,8 @@ export interface FormulaSet {
    * per g/cm^3 corresponds to about 6.673e-11).
    */
   gravitationalConstant?: number;
+  /** Radius of the Bouguer spherical cap, m (cap only). Omit for 166.735 km [LaFehr1991]. */
+  capRadiusM?: number;
 }
 
 /** The terms and anomalies of one station under a formula set, all mGal. */
@@ -81,7 +83,12 @@ function gRatio(set: FormulaSet): number {
 
 /** Bouguer term, mGal, of the set at `heightM` and `densityKgM3`. */
 export function bouguerTermMgal(set: FormulaSet, heightM: number, densityKgM3: number): number {
-  const bc = set.bouguer === 'slab' ? bouguerSlab(heightM, densityKgM3) : bouguerCap(heightM, densityKgM3);
+  const bc =
+    set.bouguer === 'slab'
+      ? bouguerSlab(heightM, densityKgM3)
+      : set.capRadiusM === undefined
+        ? bouguerCap(heightM, densityKgM3)
+        : bouguerCap(heightM, densityKgM3, set.capRadiusM);
   return toMgal(bc) * gRatio(set);
 }
 

@@ -8,6 +8,11 @@ import { CAP_RADIUS_M, DEFAULT_DENSITY_KG_M3 } from '../../constants.js';
 import { availableParallelism } from 'node:os';
 import { InputError } from '../../errors.js';
 import { writeReport } from '../../report/write-report.js';
+import { splitLegacyColumns } from '../../engine/legacy-columns.js';
+import { parseGobsOffset, parseGravityDatum, parseGravityUnit } from '../../legacy/gravity-datum.js';
+import { LEGACY_MISMATCH_TOLERANCE_MGAL, parseLegacyFormulaSet, parseLegacyTolerance } from '../../legacy/legacy-reduction.js';
+import { parseHeightType } from '../../legacy/height-type.js';
+import { parseLegacyTcRange } from '../../legacy/legacy-tc-range.js';
 import {
   parseChoice,
   parseCount,
@@ -49,6 +54,15 @@ interface RawOptions {
   belowTerrain: string;
   tcOutlierLimit: string;
   legacyTcLimit: string;
+  gravityDatum: string;
+  gravityUnits: string;
+  gobsOffset: string;
+  legacyFormulas?: string;
+  legacyTolerance: string;
+  legacyTcRange?: string;
+  stationHeightType: string;
+  demHeightType: string;
+  geoid?: string;
   json?: boolean;
   report?: string | boolean;
   progress: boolean;
@@ -60,13 +74,15 @@ export function reduceOptionsFrom(raw: RawOptions, commandLine: string[]): Reduc
   const radiusM = parsePositive('--radius', raw.radius);
   const fieldInnerRadiusM = parseNonNegative('--field-inner-radius', raw.fieldInnerRadius);
   if (!(fieldInnerRadiusM < radiusM)) throw new InputError(`option --field-inner-radius: ${fieldInnerRadiusM} m must be smaller than --radius ${radiusM} m`);
+  const split = raw.columns !== undefined ? splitLegacyColumns(raw.columns) : null;
   return {
     stationsPath: raw.stations,
     demPaths: raw.dem,
     ...(raw.farDem !== undefined ? { farDemPath: raw.farDem } : {}),
     outPath: raw.out,
     ...(raw.stationCrs !== undefined ? { stationCrs: raw.stationCrs } : {}),
-    ...(raw.columns !== undefined ? { columns: parseColumnMapping(raw.columns) } : {}),
+    ...(split && split.readerSpec.trim() !== '' ? { columns: parseColumnMapping(split.readerSpec) } : {}),
+    legacyColumns: split ? split.legacy : {},
     heightUnits: parseLengthUnit('--height-units', raw.heightUnits),
     keepGoing: raw.keepGoing === true,
     ...(raw.demCrs !== undefined ? { demCrs: raw.demCrs } : {}),
@@ -89,6 +105,17 @@ export function reduceOptionsFrom(raw: RawOptions, commandLine: string[]): Reduc
     belowTerrainM: parsePositive('--below-terrain', raw.belowTerrain),
     tcOutlierLimitMgal: parsePositive('--tc-outlier-limit', raw.tcOutlierLimit),
     legacyTcLimitMgal: parsePositive('--legacy-tc-limit', raw.legacyTcLimit),
+    gravity: {
+      datum: parseGravityDatum(raw.gravityDatum),
+      units: parseGravityUnit(raw.gravityUnits),
+      storedOffset: parseGobsOffset(raw.gobsOffset),
+    },
+    ...(raw.legacyFormulas !== undefined ? { legacyFormulas: parseLegacyFormulaSet(raw.legacyFormulas) } : {}),
+    legacyToleranceMgal: parseLegacyTolerance(raw.legacyTolerance),
+    ...(raw.legacyTcRange !== undefined ? { legacyTcRange: parseLegacyTcRange(raw.legacyTcRange) } : {}),
+    stationHeightType: parseHeightType(raw.stationHeightType, '--station-height-type'),
+    demHeightType: parseHeightType(raw.demHeightType, '--dem-height-type'),
+    ...(raw.geoid !== undefined ? { geoidPath: raw.geoid } : {}),
     progress: raw.progress,
     commandLine,
   };
@@ -144,6 +171,19 @@ export function registerReduceCommand(program: Command, io: CliIo): void {
     .option('--below-terrain <m>', 'a station this far below the DEM is flagged below_terrain (no surface adjustment), m', '50')
     .option('--tc-outlier-limit <mGal>', 'smallest TC departure from its neighbours flagged as tc_outlier, mGal', '1')
     .option('--legacy-tc-limit <mGal>', 'flag legacy_tc_change when |new - legacy TC| exceeds this, mGal', '1')
+    .option('--gravity-datum <datum>', 'datum of the gobs_mgal column: igsn71, or potsdam (IGSN71 = Potsdam - 14.0 mGal)', 'igsn71')
+    .option('--gravity-units <unit>', 'units of the gobs_mgal column: mgal, or gu (gravity units, 1 mGal = 10 g.u.)', 'mgal')
+    .option('--gobs-offset <n>', 'constant removed from the stored gravity values, in their own units (added back first)', '0')
+    .option(
+      '--legacy-formulas <set>',
+      'recompute and explain the legacy anomalies reduced with these formulas, e.g.\n' +
+        'normal=igf1930,free-air=first-order,bouguer=slab,density=2670[,atmospheric=no][,g=6.673e-11]',
+    )
+    .option('--legacy-tolerance <mGal>', 'flag legacy_mismatch when a printed legacy anomaly is not reproduced within this', String(LEGACY_MISMATCH_TOLERANCE_MGAL))
+    .option('--legacy-tc-range <R1:R2>', 'also compute the TC over the annulus the legacy TC covered, m (terrain_corr_range_mgal)')
+    .option('--station-height-type <type>', 'station heights are orthometric or ellipsoidal (the reduction uses them as declared)', 'orthometric')
+    .option('--dem-height-type <type>', 'DEM heights (fine and far-zone) are orthometric or ellipsoidal', 'orthometric')
+    .option('--geoid <N.tif>', 'geoid undulation grid (GeoTIFF, m, geoid above the ellipsoid) to convert between height types')
     .option('--no-progress', 'do not draw the progress bar')
     .option('--json', 'print one JSON summary line at the end instead of the text summary')
     .option('--report [file.html]', 'also write the HTML report (default: <out> with .html)')
