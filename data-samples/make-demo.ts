@@ -4,7 +4,7 @@
  *   node --import tsx data-samples/make-demo.ts
  *
  * fine-dem.tif (30 m, UTM 33N), far-dem.tif (0.01 deg, WGS 84), their gdalinfo -json
- * descriptions, and stations.csv with synthetic observed gravity. Deterministic (seeded);
+ * descriptions, and stations.csv (lon/lat WGS 84 and x/y UTM 33N) with synthetic observed gravity. Deterministic (seeded);
  * needs GDAL's gdal_translate and gdalinfo. See data-samples/README.md.
  */
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
@@ -17,12 +17,12 @@ import { openDem } from '../src/dem/geotiff-open.js';
 import { readDemWindow } from '../src/dem/read-window.js';
 import { runReduce } from '../src/engine/run-reduce.js';
 import { memoryIo } from '../src/cli/io.js';
+import { parseReduceArgs } from '../src/cli/commands/demo.js';
 import { readCsvTable } from '../src/io/read-results.js';
 import { normalGravity } from '../src/reduction/normal-gravity.js';
 import { freeAirCorrection } from '../src/reduction/free-air.js';
 import { atmosphericCorrection } from '../src/reduction/atmosphere.js';
 import { bouguerCap } from '../src/reduction/bouguer-cap.js';
-import { CAP_RADIUS_M } from '../src/constants.js';
 import { toMgal } from '../src/units.js';
 import { terrainHeightM, SURVEY_CENTRE_E_M, SURVEY_CENTRE_N_M } from './demo-terrain.js';
 import { bodyEffectMgal, gaussian, mulberry32, NOISE, PLANTED, plannedStations, trendMgal, TRUE_DENSITY_KG_M3 } from './demo-survey.js';
@@ -100,17 +100,10 @@ try {
   const fmStations = join(tmp, 'true-stations.csv');
   writeFileSync(fmStations, ['id,lon,lat,height_m', ...stations.map((s) => `${s.id},${s.lonText},${s.latText},${s.trueHeightM.toFixed(4)}`)].join('\n') + '\n');
   const fmOut = join(tmp, 'true-results.csv');
-  await runReduce(
-    {
-      stationsPath: fmStations, demPaths: [`${OUT}/fine-dem.tif`], farDemPath: `${OUT}/far-dem.tif`, outPath: fmOut,
-      heightUnits: 'm', keepGoing: false, demUnits: 'm', farDemUnits: 'm',
-      densityKgM3: TRUE_DENSITY_KG_M3, densitiesKgM3: [], radiusM: CAP_RADIUS_M, capRadiusM: CAP_RADIUS_M,
-      workers: 2, batchSize: 16, normalFormula: 'grs80', freeAirOrder: 2, bouguer: 'cap', fieldInnerRadiusM: 0,
-      accuracyMgal: 0.002, misfitLimitM: 10, aboveTerrainM: 50, belowTerrainM: 50, tcOutlierLimitMgal: 1, legacyTcLimitMgal: 1,
-      progress: false, commandLine: ['make-demo.ts'],
-    },
-    memoryIo(),
-  );
+  const io = memoryIo();
+  const argv = ['reduce', '--stations', fmStations, '--dem', `${OUT}/fine-dem.tif`, '--far-dem', `${OUT}/far-dem.tif`, '--out', fmOut];
+  argv.push('--density', String(TRUE_DENSITY_KG_M3), '--accuracy', '0.002', '--workers', '2', '--no-progress');
+  await runReduce(await parseReduceArgs(argv, io), io);
   const t = readCsvTable(fmOut);
   const col = (name: string): number => {
     const k = t.header.indexOf(name);
@@ -119,7 +112,8 @@ try {
   };
   const [iTc, iCov, iB, iNormal] = [col('terrain_corr_unit_mgal'), col('dem_coverage'), col('bouguer_unit_mgal'), col('normal_gravity_mgal')];
   const rho = TRUE_DENSITY_KG_M3 / 1000;
-  const lines = ['id,lon,lat,height_m,gobs_mgal'];
+  // x, y: the same positions in UTM 33N (m), so maps can be drawn over the projected fine DEM
+  const lines = ['id,lon,lat,x,y,height_m,gobs_mgal'];
   let minTc = Infinity;
   let maxTc = -Infinity;
   stations.forEach((s, i) => {
@@ -138,7 +132,7 @@ try {
     const gobs =
       gammaMgal - toMgal(freeAirCorrection(h, lat, 2)) - toMgal(atmosphericCorrection(h)) + rho * capUnitMgal - rho * tcUnit +
       bodyEffectMgal(s.eM, s.nM, h) + trendMgal(s.eM, s.nM) + NOISE.gravityMgal * normal();
-    lines.push(`${s.id},${s.lonText},${s.latText},${s.reportedHeightM.toFixed(3)},${gobs.toFixed(3)}`);
+    lines.push(`${s.id},${s.lonText},${s.latText},${s.eM.toFixed(2)},${s.nM.toFixed(2)},${s.reportedHeightM.toFixed(3)},${gobs.toFixed(3)}`);
   });
   writeFileSync(`${OUT}/stations.csv`, lines.join('\n') + '\n');
   const heights = stations.map((s) => s.trueHeightM);

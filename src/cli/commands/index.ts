@@ -4,6 +4,7 @@ import { registerDensityCommand } from './density.js';
 import { registerReportCommand } from './report.js';
 import { registerInspect } from './inspect.js';
 import { registerReduceCommand } from './reduce.js';
+import { registerDemoCommand } from './demo.js';
 
 /** Each subcommand lives in its own file and registers itself here. */
 export function registerCommands(program: Command, io: CliIo): void {
@@ -13,4 +14,5 @@ export function registerCommands(program: Command, io: CliIo): void {
   registerReportCommand(program, io);
   registerInspect(program, io);
   registerReduceCommand(program, io);
+  registerDemoCommand(program, io);
 }
