@@ -9,7 +9,8 @@
  * - local ridges (sharp-crested folded ridges striking about N60E);
  * - a valley that meanders west-east through the survey;
  * - a plateau whose edge (an escarpment about 250 m high) crosses the north-east corner;
- * - rough small-scale relief (value noise, wavelengths 90 m to 3 km).
+ * - rough small-scale relief (value noise, wavelengths 90 m to 3 km);
+ * - nothing below 20 m above sea level (lowlandFloorM).
  */
 
 /** Centre of the survey area, UTM 33N metres. */
@@ -92,5 +93,13 @@ export function terrainHeightM(eM: number, nM: number, minWavelengthM: number): 
   const plateau = 250 * smoothStep(edge + 300 * Math.sin(y / 2500), 350);
   // roughness 90 m - 3 km
   const rough = minWavelengthM <= 3000 ? fractalRelief(eM, nM, 3000, Math.max(minWavelengthM, 90), 35, 29) : 0;
-  return base + belt + regional + ridges + valley + plateau + rough;
+  return lowlandFloorM(base + belt + regional + ridges + valley + plateau + rough);
+}
+
+/**
+ * Keeps the invented lowland above sea level: heights below 100 m are eased smoothly towards
+ * 20 m (continuous with a continuous slope at 100 m), so no cell needs a water treatment.
+ */
+function lowlandFloorM(hM: number): number {
+  return hM >= 100 ? hM : 100 - 80 * (1 - Math.exp(-(100 - hM) / 80));
 }
