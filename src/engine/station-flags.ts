@@ -10,6 +10,7 @@ import { tcOutlierFlags } from '../qc/tc-outlier.js';
 import { legacyTcChangeFlags } from '../qc/legacy-tc-change.js';
 import { qcSummary, formatQcSummary } from '../qc/qc-summary.js';
 import type { ReduceOptions } from './run-options.js';
+import { InputError } from '../errors.js';
 
 export interface RunFlags {
   perStation: string[][];
@@ -48,9 +49,25 @@ export function stationFlags(
   results: Float64Array,
   tcMgal: Float64Array,
   misfitM: Float64Array,
-  o: Pick<ReduceOptions, 'misfitLimitM' | 'tcOutlierLimitMgal' | 'legacyTcLimitMgal'>,
+  o: Pick<ReduceOptions, 'misfitLimitM' | 'tcOutlierLimitMgal' | 'legacyTcLimitMgal' | 'keepGoing'>,
 ): RunFlags {
   const n = table.ids.length;
+  if (!o.keepGoing) {
+    const outside: number[] = [];
+    for (let i = 0; i < n; i++) {
+      const bits = results[i * RESULT_WIDTH + TR.flags] as number;
+      if (Number.isFinite(bits) && (bits & TERRAIN_FLAG.outside_dem) !== 0) outside.push(i);
+    }
+    const first = outside[0];
+    if (first !== undefined) {
+      throw new InputError(
+        `station lies outside the DEM (lon ${table.lonDeg[first]}, lat ${table.latDeg[first]})` +
+          (outside.length > 1 ? `; ${outside.length} stations in all are outside` : '') +
+          '; give a DEM that covers every station, or --keep-going to flag them (outside_dem) and compute the rest',
+        { file: table.source, line: table.lines[first] as number, station: table.ids[first] as string },
+      );
+    }
+  }
   const per: string[][] = table.flags.map((f) => [...f]);
   for (let i = 0; i < n; i++) {
     const bits = results[i * RESULT_WIDTH + TR.flags] as number;

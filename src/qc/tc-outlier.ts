@@ -67,7 +67,8 @@ export function tcOutlierFlags(
   const bestJ = new Int32Array(k);
   const nbTc = new Float64Array(k);
   const dev = new Float64Array(k);
-  const maxRing = Math.ceil(radius / cs) + 1;
+  // rings beyond the grid hold nothing (and a survey of one or two points has a tiny cell)
+  const maxRing = Math.min(Math.ceil(radius / cs) + 1, Math.max(nx, ny));
   const radius2 = radius * radius;
   const maxExamined = MAX_EXAMINED_PER_NEIGHBOUR * k;
   for (let i = 0; i < n; i++) {

@@ -116,3 +116,12 @@ describe('legacyTcChangeFlags', () => {
     expect(() => legacyTcChangeFlags([1], [1], NaN)).toThrow(RangeError);
   });
 });
+
+describe('tcOutlierFlags on tiny surveys', () => {
+  it('returns at once for one or two stations (nothing to compare with) without flagging', () => {
+    const one = tcOutlierFlags(new Float64Array([0]), new Float64Array([0]), new Float64Array([100]), new Float64Array([3]));
+    expect(one).toEqual([false]);
+    const two = tcOutlierFlags(new Float64Array([0, 0]), new Float64Array([0, 0]), new Float64Array([100, 100]), new Float64Array([3, 30]));
+    expect(two).toEqual([false, false]);
+  });
+});
