@@ -21,8 +21,20 @@ export interface TerrainRunOptions {
 function workerUrl(): { filename: string; execArgv: string[] } {
   const fromTs = import.meta.url.endsWith('.ts');
   const filename = new URL(fromTs ? '../../workers/terrain-worker.ts' : '../../workers/terrain-worker.js', import.meta.url).href;
-  const hasTsx = process.execArgv.some((a) => a.includes('tsx'));
-  const execArgv = fromTs && !hasTsx ? [...process.execArgv, '--import', 'tsx'] : [...process.execArgv];
+  // Workers accept only some process flags (e.g. --expose-gc is refused): pass on the module
+  // loader and resolution flags, which the TypeScript sources need, and nothing else.
+  const keep: string[] = [];
+  const argv = process.execArgv;
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i] as string;
+    if (/^--(import|require|loader|experimental-loader|conditions)$/.test(a) && i + 1 < argv.length) {
+      keep.push(a, argv[++i] as string);
+    } else if (/^--(import|require|loader|experimental-loader|conditions)=/.test(a)) {
+      keep.push(a);
+    }
+  }
+  const hasTsx = keep.some((a) => a.includes('tsx'));
+  const execArgv = fromTs && !hasTsx ? [...keep, '--import', 'tsx'] : keep;
   return { filename, execArgv };
 }
 

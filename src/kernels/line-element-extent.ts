@@ -113,22 +113,40 @@ export function curvedExtentCorrectionFactor(
   const dY = cy / t;
   const dXX = 1 / t + (cx * cx) / (t2 * t);
   const dYY = 1 / t + (cy * cy) / (t2 * t);
-  const dx2 = dx * dx;
-  const dy2 = dy * dy;
-  const second = (z: number): number => {
-    const q2 = rho2 + z * z;
-    const q = Math.sqrt(q2);
-    const q3 = q2 * q;
-    const q5 = q3 * q2;
-    const gz = -z / q3;
-    const gzz = -1 / q3 + (3 * z * z) / q5;
-    const gxx = -1 / q3 + (3 * cx * cx) / q5;
-    const gyy = -1 / q3 + (3 * cy * cy) / q5;
-    const gxz = (3 * cx * z) / q5;
-    const gyz = (3 * cy * z) / q5;
-    const Gxx = gxx + 2 * gxz * dX + gzz * dX * dX + gz * dXX;
-    const Gyy = gyy + 2 * gyz * dY + gzz * dY * dY + gz * dYY;
-    return (dx2 * Gxx + dy2 * Gyy) / 24;
-  };
-  return dx * dy * (second(drop + c1) - second(drop + c2));
+  const a = dx * dx;
+  const b = dy * dy;
+  return (
+    dx *
+    dy *
+    (curvedSecondDerivatives(drop + c1, cx, cy, rho2, a, b, dX, dY, dXX, dYY) -
+      curvedSecondDerivatives(drop + c2, cx, cy, rho2, a, b, dX, dY, dXX, dYY))
+  );
+}
+
+/** (dx^2 G_xx + dy^2 G_yy) / 24 at depth z (see curvedExtentCorrectionFactor). */
+function curvedSecondDerivatives(
+  z: number,
+  cx: number,
+  cy: number,
+  rho2: number,
+  dx2: number,
+  dy2: number,
+  dX: number,
+  dY: number,
+  dXX: number,
+  dYY: number,
+): number {
+  const q2 = rho2 + z * z;
+  const q = Math.sqrt(q2);
+  const q3 = q2 * q;
+  const q5 = q3 * q2;
+  const gz = -z / q3;
+  const gzz = -1 / q3 + (3 * z * z) / q5;
+  const gxx = -1 / q3 + (3 * cx * cx) / q5;
+  const gyy = -1 / q3 + (3 * cy * cy) / q5;
+  const gxz = (3 * cx * z) / q5;
+  const gyz = (3 * cy * z) / q5;
+  const Gxx = gxx + 2 * gxz * dX + gzz * dX * dX + gz * dXX;
+  const Gyy = gyy + 2 * gyz * dY + gzz * dY * dY + gz * dYY;
+  return (dx2 * Gxx + dy2 * Gyy) / 24;
 }

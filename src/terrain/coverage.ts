@@ -2,16 +2,16 @@
  * How much of the correction disc the DEMs cover, by sampling: rings spaced evenly in
  * log(radius) from the near window to R, each with evenly spaced azimuths (staggered on
  * alternate rings); a sample counts when the fine DEM or the far-zone DEM holds data there.
- * The result is the area-weighted covered fraction. Spacing: 48 rings x 64 azimuths (about
- * 2.7 % of the radius between rings and 5.6 degrees around), so a gap smaller than that can
- * be missed; gaps in the inner zone are caught exactly by the walk itself (nodata_near).
+ * The result is the area-weighted covered fraction. Spacing: 32 rings x 48 azimuths (about
+ * 23 % of the radius between rings near R, 7.5 degrees around), so a gap smaller than that
+ * can be missed; gaps in the inner zone are caught exactly by the walk itself (nodata_near).
  */
 import type { DemGrid } from '../dem/grid.js';
 import type { GridFrame } from './grid-frame.js';
 import { localToGrid } from './grid-frame.js';
 
-export const COVERAGE_RINGS = 48;
-export const COVERAGE_AZIMUTHS = 64;
+export const COVERAGE_RINGS = 32;
+export const COVERAGE_AZIMUTHS = 48;
 
 /** Sample offsets (east, north, area weight), built once per run. */
 export interface CoveragePattern {

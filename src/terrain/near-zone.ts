@@ -74,9 +74,11 @@ export function integrateNearZone(grid: DemGrid, frame: GridFrame, spec: NearZon
   const cx = [east, east, west, west];
   const cy = [south, north, north, south];
   let factor = 0;
-  let missing = 0;
-  let points = 0;
+  const counts = { missing: 0, points: 0 };
   const gc = new Float64Array(2);
+  localToGrid(frame, 0, 0, gc);
+  const atStation = bilinearHeight(grid, gc[0] as number, gc[1] as number) + spec.adjustM - spec.stationHeightM;
+  const offsetAtStation = Number.isFinite(atStation) ? Math.abs(atStation) : 0;
   for (let side = 0; side < 4; side++) {
     const ax = cx[side] as number;
     const ay = cy[side] as number;
@@ -102,31 +104,66 @@ export function integrateNearZone(grid: DemGrid, frame: GridFrame, spec: NearZon
         if (!(rhoMax > rho0)) continue;
         const ct = Math.cos(theta);
         const st = Math.sin(theta);
-        const nRho = Math.max(2, Math.ceil((rhoMax - rho0) / spec.segmentM));
-        const hRho = (rhoMax - rho0) / nRho;
+        // Segments of about segmentM; when the surface misses the station by d0 (no height
+        // adjustment), the integrand changes on the scale d0 near the station, so the first
+        // metres are split geometrically from d0 / 8 upward.
         let ray = 0;
-        for (let ir = 0; ir < nRho; ir++) {
-          for (let gr = 0; gr < 3; gr++) {
-            const rho = rho0 + hRho * (ir + 0.5 + 0.5 * (GL_X[gr] as number));
-            localToGrid(frame, rho * ct, rho * st, gc);
-            const b = bilinearHeight(grid, gc[0] as number, gc[1] as number);
-            points++;
-            if (Number.isNaN(b)) {
-              missing++;
-              continue;
-            }
-            let delta = b - spec.stationHeightM;
-            if (spec.adjustM !== 0 && rho < spec.taperM) {
-              const u = rho / spec.taperM;
-              delta += spec.adjustM * (1 - u * u * (3 - 2 * u));
-            }
-            const q = Math.sqrt(rho * rho + delta * delta);
-            ray += (0.5 * hRho * (GL_W[gr] as number) * delta * delta) / (q * (q + rho));
+        let a = rho0;
+        if (offsetAtStation > 0 && rho0 < spec.segmentM) {
+          let b = Math.max(rho0, offsetAtStation / 8);
+          if (b > a) {
+            ray += raySegment(grid, frame, spec, ct, st, a, b, gc, counts);
+            a = b;
           }
+          while (a < spec.segmentM && a < rhoMax) {
+            b = Math.min(rhoMax, spec.segmentM, a * 4);
+            ray += raySegment(grid, frame, spec, ct, st, a, b, gc, counts);
+            a = b;
+          }
+        }
+        if (rhoMax > a) {
+          const nRho = Math.max(1, Math.ceil((rhoMax - a) / spec.segmentM));
+          const hRho = (rhoMax - a) / nRho;
+          for (let ir = 0; ir < nRho; ir++) ray += raySegment(grid, frame, spec, ct, st, a + ir * hRho, a + (ir + 1) * hRho, gc, counts);
         }
         factor += wTheta * ray;
       }
     }
   }
-  return { factor, missing, points, bounds };
+  return { factor, missing: counts.missing, points: counts.points, bounds };
+}
+
+/** 3-point Gauss-Legendre over rho in [a, b] along one ray (direction ct, st). */
+function raySegment(
+  grid: DemGrid,
+  frame: GridFrame,
+  spec: NearZoneSpec,
+  ct: number,
+  st: number,
+  a: number,
+  b: number,
+  gc: Float64Array,
+  counts: { missing: number; points: number },
+): number {
+  const half = 0.5 * (b - a);
+  const mid = 0.5 * (a + b);
+  let sum = 0;
+  for (let g = 0; g < 3; g++) {
+    const rho = mid + half * (GL_X[g] as number);
+    localToGrid(frame, rho * ct, rho * st, gc);
+    const h = bilinearHeight(grid, gc[0] as number, gc[1] as number);
+    counts.points++;
+    if (Number.isNaN(h)) {
+      counts.missing++;
+      continue;
+    }
+    let delta = h - spec.stationHeightM;
+    if (spec.adjustM !== 0 && rho < spec.taperM) {
+      const u = rho / spec.taperM;
+      delta += spec.adjustM * (1 - u * u * (3 - 2 * u));
+    }
+    const q = Math.sqrt(rho * rho + delta * delta);
+    sum += (half * (GL_W[g] as number) * delta * delta) / (q * (q + rho));
+  }
+  return sum;
 }

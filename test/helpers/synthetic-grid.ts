@@ -25,7 +25,8 @@ export function squareGrid(cells: number, cellM: number, f: (x: number, y: numbe
 export function contextFor(fine: DemGrid, far: DemGrid | null, opts: Partial<ZonePlanOptions> = {}): TerrainContext {
   const plan = planZones({
     radiusM: 166735,
-    accuracyMgal: 0.01,
+    // 0.01 mGal at 2670 kg/m^3, expressed at the unit density as the engine takes it
+    accuracyMgal: (0.01 * 1000) / 2670,
     fieldInnerRadiusM: 0,
     fineCellM: Math.max(fine.cellSizeX, fine.cellSizeY) * (fine.crs.kind === 'projected' ? fine.crs.linearUnitM : 111000),
     aboveTerrainM: 50,
