@@ -198,7 +198,19 @@ Output: every input column, then dem_height_m, height_misfit_m, normal_gravity_m
 free_air_corr_mgal, bouguer_slab_mgal, bouguer_cap_mgal, bouguer_unit_mgal, terrain_corr_mgal,
 terrain_corr_unit_mgal (TC at 1000 kg/m^3), topo_effect_mgal, free_air_anomaly_mgal, simple_bouguer_mgal,
 complete_bouguer_mgal, complete_bouguer_mgal_d<density>, tc_inner_mgal (< 0.895 km), tc_middle_mgal
-(< 21.9 km), tc_outer_mgal, dem_coverage and flags. Empty cells mean "not available".`,
+(< 21.9 km), tc_outer_mgal, dem_coverage and flags. Empty cells mean "not available".
+With a gravity conversion: gobs_igsn71_mgal (the value reduced). With --geoid: geoid_undulation_m,
+orthometric_height_m, ellipsoidal_height_m. With --legacy-tc-range: terrain_corr_range_mgal. With
+--legacy-formulas: legacy_fa_recomputed_mgal, legacy_cba_recomputed_mgal and the delta_*_mgal parts of
+the change from the legacy CBA (they sum to delta_total_mgal); legacy_mismatch flags printed legacy
+anomalies not reproduced within --legacy-tolerance. Legacy columns: legacy_tc_mgal, legacy_fa_mgal,
+legacy_cba_mgal, datum_offset_mgal (mGal added to reach IGSN71; empty = the datum's own), all mappable
+with --columns.
+
+Legacy example:
+  talus reduce --stations old.csv --columns height_m=ELEV_FT --height-units ft --gravity-datum potsdam \\
+    --legacy-formulas normal=igf1930,free-air=first-order,bouguer=slab,density=2670,g=6.673e-11 \\
+    --dem dem.tif --out r.csv`,
     )
     .action(async (raw: RawOptions) => {
       const opts = reduceOptionsFrom(raw, ['talus', 'reduce', ...process.argv.slice(3)]);
