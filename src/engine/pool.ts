@@ -65,21 +65,32 @@ export async function runTerrain(ctx: TerrainContext, stations: StationArrays, r
     poolError = e;
   });
   let done = 0;
+  // One abort listener for the whole run (not one per task): on abort the pool is destroyed,
+  // which ends the running tasks, and the run rejects.
+  let onAbort: (() => void) | null = null;
+  const aborted = new Promise<never>((_, reject) => {
+    onAbort = () => reject(abortError());
+    opts.signal?.addEventListener('abort', onAbort, { once: true });
+  });
+  aborted.catch(() => {});
   try {
+    if (opts.signal?.aborted) throw abortError();
     const tasks: Promise<void>[] = [];
     for (let start = 0; start < n; start += opts.batchSize) {
       const end = Math.min(n, start + opts.batchSize);
-      const runOpts = opts.signal ? { signal: opts.signal } : {};
       tasks.push(
-        (pool.run({ start, end }, runOpts) as Promise<number>).then((count) => {
+        (pool.run({ start, end }) as Promise<number>).then((count) => {
           done += count;
           opts.onProgress?.(done);
         }),
       );
     }
-    await Promise.all(tasks);
+    const all = Promise.all(tasks);
+    all.catch(() => {}); // after an abort the destroyed pool rejects the pending tasks
+    await Promise.race([all, aborted]);
     if (poolError) throw poolError;
   } finally {
+    if (onAbort) opts.signal?.removeEventListener('abort', onAbort);
     await pool.destroy();
   }
 }
