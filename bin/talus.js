@@ -9,6 +9,13 @@ if (!existsSync(compiled)) {
   process.stderr.write('talus: the compiled CLI is missing (dist/). Run `npm install` or `npm run build` first.\n');
   process.exit(1);
 }
+// A reader that goes away (e.g. `talus reduce --help | head`) is not an error.
+for (const stream of [process.stdout, process.stderr]) {
+  stream.on('error', (e) => {
+    if (e && e.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+    throw e;
+  });
+}
 const { runCli } = await import(compiled);
 const code = await runCli(process.argv.slice(2), {
   stdout: process.stdout,

@@ -15,7 +15,7 @@ export function buildProgram(io: CliIo): Command {
   program
     .name('talus')
     .description(
-      'Gravity terrain corrections (Bullard C) from GeoTIFF DEMs, with Earth curvature, out to 166.7 km,\n' +
+      'Gravity terrain corrections (Bullard C) from GeoTIFF DEMs, with Earth curvature, out to 166.7 km, ' +
         'and complete Bouguer anomalies for every station.',
     )
     .version(talusVersion(), '-V, --version', 'print the talus version')

@@ -84,9 +84,10 @@ interface DemoCliOptions {
 export function registerDemoCommand(program: Command, io: CliIo): void {
   program
     .command('demo')
+    .summary('run talus on the bundled invented survey (reduce, report, density)')
     .description(
-      'run talus on the bundled invented survey (data-samples/demo): talus reduce, talus report and talus density,\n' +
-        'writing demo-results.csv (+ provenance) and demo-report.html into --out-dir',
+      'Run talus on the bundled invented survey (data-samples/demo): talus reduce, talus report and talus density, ' +
+        'writing demo-results.csv (+ provenance) and demo-report.html into --out-dir.',
     )
     .option('--out-dir <dir>', 'directory for the results and the report', 'out')
     .option('--workers <n>', 'worker threads for talus reduce (0 = inline); default: one per CPU core')

@@ -6,13 +6,11 @@ import { registerInspect } from './inspect.js';
 import { registerReduceCommand } from './reduce.js';
 import { registerDemoCommand } from './demo.js';
 
-/** Each subcommand lives in its own file and registers itself here. */
+/** Each subcommand lives in its own file and registers itself here, in the order of --help. */
 export function registerCommands(program: Command, io: CliIo): void {
-  void program;
-  void io;
+  registerReduceCommand(program, io);
+  registerInspect(program, io);
   registerDensityCommand(program, io);
   registerReportCommand(program, io);
-  registerInspect(program, io);
-  registerReduceCommand(program, io);
   registerDemoCommand(program, io);
 }

@@ -139,8 +139,8 @@ export function registerReduceCommand(program: Command, io: CliIo): void {
     .command('reduce')
     .summary('terrain corrections and Bouguer anomalies for every station')
     .description(
-      'Compute, for every station, the terrain correction (Bullard C, relative to the spherical cap at the\n' +
-        'station height, Earth curvature included) from the DEM(s) out to --radius, and the normal gravity,\n' +
+      'Compute, for every station, the terrain correction (Bullard C, relative to the spherical cap at the ' +
+        'station height, Earth curvature included) from the DEM(s) out to --radius, and the normal gravity, ' +
         'atmospheric, free-air and Bouguer corrections and the free-air, simple and complete Bouguer anomalies.',
     )
     .requiredOption('--stations <file.csv>', 'station table (columns id, lon, lat, height_m, gobs_mgal; see --columns)')
