@@ -11,19 +11,16 @@ import { readStations } from '../stations/read-csv.js';
 import { makeTransform } from '../stations/transform.js';
 import { buildPyramid } from '../terrain/pyramid.js';
 import { planZones } from '../terrain/zone-plan.js';
-import { makeTerrainContext, TR } from '../terrain/station-terrain.js';
-import { meridianRadiusM, primeVerticalRadiusM } from '../terrain/geodesy.js';
-import type { DemGrid } from '../dem/grid.js';
-import { NORMAL_FORMULAS } from '../reduction/normal-gravity.js';
+import { makeTerrainContext } from '../terrain/station-terrain.js';
 import { writeFileAtomic } from '../io/atomic-file.js';
 import { resultsCsv, type OutputColumn } from '../io/results-csv.js';
-import { sha256File, type DemProvenance, type Provenance } from '../io/provenance.js';
-import { loadDem, type LoadedDem } from './load-dems.js';
+import { sha256File, type Provenance } from '../io/provenance.js';
+import { loadDem } from './load-dems.js';
 import { farWeights } from './far-mask.js';
 import { RESULT_WIDTH, sharedFloat64, type StationArrays } from './batch.js';
 import { runTerrain } from './pool.js';
 import { makeProgress } from './progress.js';
-import { reduceStation, type ReductionSettings } from './reduction-terms.js';
+import type { ReductionSettings } from './reduction-terms.js';
 import { stationFlags } from './station-flags.js';
 import type { ReduceOptions, ReduceSummary } from './run-options.js';
 import { suspectHeightTypeMismatch } from '../legacy/height-type.js';
@@ -32,46 +29,14 @@ import { runGravity } from './legacy-gravity.js';
 import { OUTSIDE_GEOID_FLAG, stationHeights } from './legacy-heights.js';
 import { checkRangeWithinRadius, rangeTerrain, type RangeTerrain } from './legacy-tc-pass.js';
 import { legacyOutputs } from './legacy-outputs.js';
+import { reductionColumns } from './reduction-columns.js';
+import { cellSizeM, demProvenance, meanOf, runFormulas } from './run-provenance.js';
 
 /** The provenance record of a run: the common fields plus the gravity conversions, heights and legacy comparison. */
 interface RunProvenance extends Provenance {
   conversions: { gravity: unknown[] };
   heights: Record<string, unknown>;
   legacy: Record<string, unknown>;
-}
-
-/** Largest cell side of a grid in metres near latitude latDeg. */
-function cellSizeM(g: DemGrid, latDeg: number): number {
-  if (g.crs.kind === 'projected') return Math.max(g.cellSizeX, g.cellSizeY) * g.crs.linearUnitM;
-  const deg = Math.PI / 180;
-  return Math.max(g.cellSizeX * deg * primeVerticalRadiusM(latDeg) * Math.cos(latDeg * deg), g.cellSizeY * deg * meridianRadiusM(latDeg));
-}
-
-function meanOf(a: Float64Array, active: Uint8Array): number {
-  let s = 0;
-  let n = 0;
-  for (let i = 0; i < a.length; i++) if (active[i] === 1 && Number.isFinite(a[i] as number)) { s += a[i] as number; n++; }
-  return n > 0 ? s / n : 0;
-}
-
-async function demProvenance(role: 'fine' | 'far', d: LoadedDem, latDeg: number): Promise<DemProvenance[]> {
-  const out: DemProvenance[] = [];
-  for (const s of d.sources) {
-    out.push({
-      role,
-      path: s.path,
-      sha256: await sha256File(s.path),
-      fileSizeBytes: s.fileSizeBytes,
-      width: s.width,
-      height: s.height,
-      crs: s.crs.label,
-      cellSizeX: s.cellSizeX,
-      cellSizeY: s.cellSizeY,
-      cellSizeM: cellSizeM(d.grid, latDeg),
-      windowRead: { width: d.grid.width, height: d.grid.height, originX: d.grid.originX, originY: d.grid.originY },
-    });
-  }
-  return out;
 }
 
 export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSignal): Promise<ReduceSummary> {
@@ -185,59 +150,10 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
     capRadiusM: o.capRadiusM,
     useInnerTc: o.fieldInnerRadiusM > 0,
   };
-  const col = (name: string, decimals: number): OutputColumn => ({ name, decimals, values: new Float64Array(n).fill(NaN) });
-  const c = {
-    demH: col('dem_height_m', 3),
-    misfit: col('height_misfit_m', 3),
-    normal: col('normal_gravity_mgal', 4),
-    atm: col('atmospheric_corr_mgal', 4),
-    fac: col('free_air_corr_mgal', 4),
-    slab: col('bouguer_slab_mgal', 4),
-    cap: col('bouguer_cap_mgal', 4),
-    bUnit: col('bouguer_unit_mgal', 4),
-    tc: col('terrain_corr_mgal', 4),
-    tcUnit: col('terrain_corr_unit_mgal', 4),
-    topo: col('topo_effect_mgal', 4),
-    faa: col('free_air_anomaly_mgal', 4),
-    sba: col('simple_bouguer_mgal', 4),
-    cba: col('complete_bouguer_mgal', 4),
-  };
-  const extra = o.densitiesKgM3.map((d) => col(`complete_bouguer_mgal_d${d}`, 4));
-  const zones = { inner: col('tc_inner_mgal', 4), middle: col('tc_middle_mgal', 4), outer: col('tc_outer_mgal', 4) };
-  const coverage = col('dem_coverage', 5);
-  let kernelEvals = 0;
-  let computed = 0;
+  const rc = reductionColumns(settings, table, heights.reductionM, gravity.igsn71Mgal, results, active);
+  const { c, extra, zones, coverage, computed, kernelEvals } = rc;
   const scale = o.densityKgM3 / UNIT_DENSITY_KG_M3;
   const v = (oc: OutputColumn): Float64Array => oc.values as Float64Array;
-  for (let i = 0; i < n; i++) {
-    if (active[i] !== 1) continue;
-    const base = i * RESULT_WIDTH;
-    const tcUnit = results[base + TR.tcUnitMgal] as number;
-    const r = reduceStation(settings, table.latDeg[i] as number, heights.reductionM[i] as number, gravity.igsn71Mgal[i] as number, tcUnit, table.innerTcMgal[i] as number);
-    v(c.demH)[i] = results[base + TR.demHeightM] as number;
-    v(c.misfit)[i] = results[base + TR.misfitM] as number;
-    v(c.normal)[i] = r.normalMgal;
-    v(c.atm)[i] = r.atmMgal;
-    v(c.fac)[i] = r.freeAirCorrMgal;
-    v(c.slab)[i] = r.slabMgal;
-    v(c.cap)[i] = r.capMgal;
-    v(c.bUnit)[i] = r.bouguerUnitMgal;
-    v(c.tc)[i] = r.tcMgal;
-    v(c.tcUnit)[i] = tcUnit;
-    v(c.topo)[i] = r.topoEffectMgal;
-    v(c.faa)[i] = r.faaMgal;
-    v(c.sba)[i] = r.sbaMgal;
-    v(c.cba)[i] = r.cbaMgal;
-    extra.forEach((e, k) => (v(e)[i] = r.cbaAtMgal[k] as number));
-    v(zones.inner)[i] = (results[base + TR.tcInnerUnitMgal] as number) * scale;
-    v(zones.middle)[i] = (results[base + TR.tcMiddleUnitMgal] as number) * scale;
-    v(zones.outer)[i] = (results[base + TR.tcOuterUnitMgal] as number) * scale;
-    v(coverage)[i] = results[base + TR.coverage] as number;
-    if (Number.isFinite(tcUnit)) {
-      computed++;
-      kernelEvals += (results[base + TR.prisms] as number) + (results[base + TR.columns] as number) + (results[base + TR.geocentric] as number) + (results[base + TR.nearPoints] as number);
-    }
-  }
   const flags = stationFlags(table, results, v(c.tc), v(c.misfit), o);
   const heightWarning = suspectHeightTypeMismatch(v(c.misfit));
   if (heightWarning) warnings.push(heightWarning);
@@ -293,14 +209,7 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
     createdUtc: new Date().toISOString(),
     parameters: { ...o, commandLine: undefined, columns: o.columns ?? null },
     constants: { G, G_units: 'm^3 kg^-1 s^-2 (CODATA 2018)', earthRadiusM: 6371000, unitDensityKgM3: UNIT_DENSITY_KG_M3 },
-    formulas: {
-      normalGravity: NORMAL_FORMULAS.find((f) => f.name === o.normalFormula)?.description ?? o.normalFormula,
-      atmospheric: 'Hinze et al. 2005 (after Wenzel 1985): 0.874 - 9.9e-5 h + 3.56e-9 h^2 mGal',
-      freeAir: o.freeAirOrder === 2 ? 'second order, Hinze et al. 2005' : 'first order, 0.3086 mGal/m',
-      bouguer: o.bouguer === 'cap' ? `spherical cap to ${o.capRadiusM} m, LaFehr 1991` : 'infinite slab 2 pi G rho h',
-      terrain: 'Bullard C relative to the spherical cap at station height, Earth curvature included, to --radius',
-      ...(o.legacyTcRange ? { terrainRange: 'a second terrain pass over --legacy-tc-range (inside R1 skipped, ends at R2)' } : {}),
-    },
+    formulas: runFormulas(o),
     conversions: { gravity: gravity.conversions },
     heights: heights.record,
     legacy: legacy.record,
