@@ -11,7 +11,7 @@ export interface QcFlagInfo {
   option: string;
   /** Default threshold, in words ('' when there is none). */
   defaultValue: string;
-  raisedBy: 'engine' | 'qc';
+  raisedBy: 'reader' | 'engine' | 'qc';
 }
 
 /** Default height misfit limit, m (station height minus DEM height). */
@@ -22,13 +22,16 @@ export const DEFAULT_DUPLICATE_TOLERANCE_M = 1;
 export const DEFAULT_LEGACY_TC_LIMIT_MGAL = 1;
 
 export const QC_FLAGS: readonly QcFlagInfo[] = [
-  { code: 'outside_dem', meaning: 'station lies outside every DEM', option: '', defaultValue: '', raisedBy: 'engine' },
-  { code: 'dem_partial', meaning: 'the DEMs do not cover the whole correction area (see dem_coverage)', option: '', defaultValue: '', raisedBy: 'engine' },
-  { code: 'nodata_near', meaning: 'nodata cells close to the station', option: '', defaultValue: '', raisedBy: 'engine' },
-  { code: 'height_misfit', meaning: 'station height differs from the DEM height by more than the limit', option: '--misfit-limit', defaultValue: `${DEFAULT_MISFIT_LIMIT_M} m`, raisedBy: 'engine' },
-  { code: 'above_terrain', meaning: 'station is above the DEM surface by more than the misfit limit', option: '--misfit-limit', defaultValue: `${DEFAULT_MISFIT_LIMIT_M} m`, raisedBy: 'engine' },
-  { code: 'below_terrain', meaning: 'station is below the DEM surface by more than the misfit limit', option: '--misfit-limit', defaultValue: `${DEFAULT_MISFIT_LIMIT_M} m`, raisedBy: 'engine' },
-  { code: 'duplicate_position', meaning: 'another station lies within the tolerance horizontally', option: '--duplicate-tolerance', defaultValue: `${DEFAULT_DUPLICATE_TOLERANCE_M} m`, raisedBy: 'qc' },
-  { code: 'tc_outlier', meaning: 'terrain correction far from the median of nearby stations at similar heights', option: '--tc-outlier-limit', defaultValue: '1 mGal, and 5 robust sigma of the neighbours', raisedBy: 'qc' },
-  { code: 'legacy_tc_change', meaning: 'new terrain correction differs from the legacy one by more than the limit', option: '--legacy-tc-limit', defaultValue: `${DEFAULT_LEGACY_TC_LIMIT_MGAL} mGal`, raisedBy: 'qc' },
+  { code: 'bad_row', meaning: 'the row could not be used (its message is in the provenance warnings); only with --keep-going', option: '--keep-going', defaultValue: '', raisedBy: 'reader' },
+  { code: 'outside_dem', meaning: 'station lies outside the fine DEM (not computed); only with --keep-going, else an error', option: '--keep-going', defaultValue: '', raisedBy: 'engine' },
+  { code: 'dem_partial', meaning: 'the DEMs do not cover the whole correction disc (dem_coverage < 1); the missing part counts as the cap', option: '--far-dem', defaultValue: '', raisedBy: 'engine' },
+  { code: 'nodata_near', meaning: 'nodata within the inner zone (895 m) or at the station', option: '', defaultValue: '', raisedBy: 'engine' },
+  { code: 'height_misfit', meaning: '|station height - DEM height| exceeds the limit', option: '--misfit-limit', defaultValue: `${DEFAULT_MISFIT_LIMIT_M} m`, raisedBy: 'engine' },
+  { code: 'above_terrain', meaning: 'station more than the limit above the DEM (tower, airborne): the DEM surface is used as it is, not pulled to the station', option: '--above-terrain', defaultValue: '50 m', raisedBy: 'engine' },
+  { code: 'below_terrain', meaning: 'station more than the limit below the DEM (tunnel, or a bad height): the DEM surface is used as it is', option: '--below-terrain', defaultValue: '50 m', raisedBy: 'engine' },
+  { code: 'duplicate_position', meaning: 'another station within 0.01 m horizontally (a re-occupation or a copied row)', option: '', defaultValue: '0.01 m', raisedBy: 'reader' },
+  { code: 'tc_outlier', meaning: 'terrain correction far from the median of its nearest neighbours at similar heights', option: '--tc-outlier-limit', defaultValue: '1 mGal, and 5 robust sigma of the neighbours', raisedBy: 'qc' },
+  { code: 'legacy_tc_change', meaning: '|new TC - legacy_tc_mgal| exceeds the limit', option: '--legacy-tc-limit', defaultValue: `${DEFAULT_LEGACY_TC_LIMIT_MGAL} mGal`, raisedBy: 'qc' },
+  { code: 'legacy_mismatch', meaning: 'a printed legacy anomaly is not reproduced by the declared --legacy-formulas', option: '--legacy-tolerance', defaultValue: '0.05 mGal', raisedBy: 'qc' },
+  { code: 'outside_geoid', meaning: 'station outside the --geoid grid (not computed); only with --keep-going', option: '--geoid', defaultValue: '', raisedBy: 'engine' },
 ];

@@ -28,7 +28,7 @@ describe('qcSummary', () => {
   it('formats a short digest naming each flag with its meaning and the worst misfits', () => {
     const text = formatQcSummary(qcSummary(flags, ids, misfit, 2));
     expect(text.split('\n')[0]).toBe('QC: 7 stations, 5 flagged');
-    expect(text).toMatch(/height_misfit\s+2\s+station height differs from the DEM/);
+    expect(text).toMatch(/height_misfit\s+2\s+\|station height - DEM height\| exceeds the limit/);
     expect(text).toContain('worst height misfits (station - DEM): B +23.4 m, D -15.1 m');
   });
 
@@ -40,8 +40,8 @@ describe('qcSummary', () => {
     const codes = QC_FLAGS.map((f) => f.code);
     expect(new Set(codes).size).toBe(codes.length);
     expect(codes).toEqual([
-      'outside_dem', 'dem_partial', 'nodata_near', 'height_misfit', 'above_terrain', 'below_terrain',
-      'duplicate_position', 'tc_outlier', 'legacy_tc_change',
+      'bad_row', 'outside_dem', 'dem_partial', 'nodata_near', 'height_misfit', 'above_terrain', 'below_terrain',
+      'duplicate_position', 'tc_outlier', 'legacy_tc_change', 'legacy_mismatch', 'outside_geoid',
     ]);
   });
 });

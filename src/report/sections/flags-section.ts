@@ -2,23 +2,13 @@
 import { esc } from '../escape.js';
 import type { ReportData } from '../report-data.js';
 import type { ReportSection, SectionResult } from '../section-types.js';
+import { QC_FLAGS } from '../../qc/flag-codes.js';
 
 /** Station ids listed per flag code before "and N more". */
 export const MAX_IDS_PER_FLAG = 30;
 
-/** Meaning of each flag code of docs/results-columns.md. */
-export const FLAG_MEANINGS: Readonly<Record<string, string>> = {
-  outside_dem: 'station outside the DEM',
-  dem_partial: 'DEM covers only part of the correction area',
-  nodata_near: 'DEM nodata close to the station',
-  height_misfit: 'station height far from the DEM height',
-  above_terrain: 'station well above the terrain',
-  below_terrain: 'station well below the terrain',
-  duplicate_position: 'another station at the same position',
-  tc_outlier: 'terrain correction unlike its neighbours',
-  legacy_tc_change: 'large change from the legacy terrain correction',
-  bad_row: 'row could not be used',
-};
+/** Meaning of each flag code (the table in src/qc/flag-codes.ts, also the README's). */
+export const FLAG_MEANINGS: Readonly<Record<string, string>> = Object.fromEntries(QC_FLAGS.map((f) => [f.code, f.meaning]));
 
 /** code → ids in station order. */
 export function flagIndex(data: ReportData): Map<string, string[]> {
