@@ -14,13 +14,35 @@
  * parent mean, so no large raw moments cancel. Within-child centroid offsets of partly valid
  * children are neglected.
  *
- * Level 0 stores no extra arrays: its variance and covariances are 0 and its weight is 1 where
- * the height is not NaN (times the optional native weight). Coarse arrays live on
- * SharedArrayBuffers so worker threads share the pyramid without copying; children are
- * combined in float64 and stored as float32.
+ * Storage: the six values of a coarse cell sit side by side in one Float32Array per level
+ * (CELL_STRIDE floats per cell, in the order of the CELL_* offsets), so reading a cell touches
+ * one cache line instead of six arrays. Level 0 stores nothing extra: its variance and
+ * covariances are 0 and its weight is 1 where the height is not NaN (times the optional native
+ * weight). Level 1 is not stored either: its cells are combined from their four native cells
+ * when read (readCell), with the same arithmetic and float32 rounding as a stored level, so the
+ * results are the same bit for bit. Storing it would cost 1.5x the DEM's bytes; the levels
+ * from 2 up cost 0.5x. Coarse arrays live on SharedArrayBuffers so worker threads share the
+ * pyramid without copying; children are combined in float64 and stored as float32.
  */
 import type { DemGrid } from '../dem/grid.js';
 import { sharedFloat32 } from '../dem/grid.js';
+
+/** Offsets of a cell's values in a level's `cells` array, and the floats per cell. */
+export const CELL_WEIGHT = 0;
+/** Mean valid height, m (NaN when the weight is 0). */
+export const CELL_MEAN = 1;
+/** Variance of the valid native heights, m^2. */
+export const CELL_VARIANCE = 2;
+/** Third central moment of the valid native heights, m^3. */
+export const CELL_MOMENT3 = 3;
+/** cov(H, native column offset), m x cells. */
+export const CELL_COV_COL = 4;
+/** cov(H, native row offset, rows increase southward), m x cells. */
+export const CELL_COV_ROW = 5;
+export const CELL_STRIDE = 6;
+
+/** The first level that is stored; level 1 is combined from level 0 when read. */
+export const FIRST_STORED_LEVEL = 2;
 
 export interface PyramidLevel {
   /** Level number (0 = native). */
@@ -29,31 +51,41 @@ export interface PyramidLevel {
   factor: number;
   width: number;
   height: number;
-  /** Mean valid height, m (NaN when weight = 0). At level 0 the DEM itself. */
-  mean: Float32Array;
-  /** Variance of the valid native heights, m^2; null at level 0 (zero). */
-  variance: Float32Array | null;
-  /** Third central moment of the valid native heights, m^3; null at level 0 (zero). */
-  moment3: Float32Array | null;
-  /** cov(H, native column offset), m x cells; null at level 0. */
-  covCol: Float32Array | null;
-  /** cov(H, native row offset, rows increase southward), m x cells; null at level 0. */
-  covRow: Float32Array | null;
-  /** Fraction of the native footprint with data and in use, 0..1; null at level 0 without a native weight (1 where the height is not NaN). */
-  weight: Float32Array | null;
+  /** CELL_STRIDE values per cell, row-major; null at level 0 (the DEM) and level 1 (not stored). */
+  cells: Float32Array | null;
 }
 
 export interface Pyramid {
   /** Native width and height (the grid's). */
   nativeWidth: number;
   nativeHeight: number;
+  /** Native heights, m (the grid's data). */
+  heights: Float32Array;
+  /** Native weights 0..1 (0 where the height is NaN), or null: 1 where the height is not NaN. */
+  nativeWeight: Float32Array | null;
   levels: PyramidLevel[];
 }
 
-/** Weight of cell k of a level (level 0 may have no weight array). */
-export function levelWeight(lv: PyramidLevel, k: number): number {
-  if (lv.weight !== null) return lv.weight[k] as number;
-  return Number.isNaN(lv.mean[k] as number) ? 0 : 1;
+/** Scratch for reading and combining cells (one per thread); allocates nothing once made. */
+export interface CellScratch {
+  /** The children's values, CELL_STRIDE each. */
+  child: Float32Array;
+  /** Children's weights times their native areas, and their centre offsets from the parent's. */
+  cw: Float64Array;
+  ox: Float64Array;
+  oy: Float64Array;
+  /** Scratch for children that are themselves combined when read. */
+  next: CellScratch | null;
+}
+
+export function makeCellScratch(): CellScratch {
+  return {
+    child: new Float32Array(4 * CELL_STRIDE),
+    cw: new Float64Array(4),
+    ox: new Float64Array(4),
+    oy: new Float64Array(4),
+    next: null,
+  };
 }
 
 /**
@@ -68,15 +100,54 @@ export function buildPyramid(grid: DemGrid, nativeWeight?: Float32Array): Pyrami
     weight0 = nativeWeight;
     for (let i = 0; i < width * height; i++) if (Number.isNaN(data[i] as number)) weight0[i] = 0;
   }
-  const levels: PyramidLevel[] = [
-    { level: 0, factor: 1, width, height, mean: data, variance: null, moment3: null, covCol: null, covRow: null, weight: weight0 },
-  ];
-  let prev = levels[0] as PyramidLevel;
+  const pyr: Pyramid = {
+    nativeWidth: width,
+    nativeHeight: height,
+    heights: data,
+    nativeWeight: weight0,
+    levels: [{ level: 0, factor: 1, width, height, cells: null }],
+  };
+  const scratch = makeCellScratch();
+  let prev = pyr.levels[0] as PyramidLevel;
   while (prev.width > 1 || prev.height > 1) {
-    prev = coarsen(prev, width, height);
-    levels.push(prev);
+    const level = prev.level + 1;
+    const w = Math.ceil(prev.width / 2);
+    const h = Math.ceil(prev.height / 2);
+    const next: PyramidLevel = { level, factor: prev.factor * 2, width: w, height: h, cells: null };
+    if (level >= FIRST_STORED_LEVEL) {
+      const cells = sharedFloat32(w * h * CELL_STRIDE);
+      for (let row = 0; row < h; row++) {
+        for (let col = 0; col < w; col++) combineCell(pyr, level, row, col, cells, (row * w + col) * CELL_STRIDE, scratch);
+      }
+      next.cells = cells;
+    }
+    pyr.levels.push(next);
+    prev = next;
   }
-  return { nativeWidth: width, nativeHeight: height, levels };
+  return pyr;
+}
+
+/** Writes the CELL_STRIDE values of cell (row, col) of `level` into out[o ...]. */
+export function readCell(pyr: Pyramid, level: number, row: number, col: number, out: Float32Array, o: number, scratch: CellScratch): void {
+  if (level === 0) {
+    const k = row * pyr.nativeWidth + col;
+    const h = pyr.heights[k] as number;
+    out[o + CELL_WEIGHT] = pyr.nativeWeight !== null ? (pyr.nativeWeight[k] as number) : Number.isNaN(h) ? 0 : 1;
+    out[o + CELL_MEAN] = h;
+    out[o + CELL_VARIANCE] = 0;
+    out[o + CELL_MOMENT3] = 0;
+    out[o + CELL_COV_COL] = 0;
+    out[o + CELL_COV_ROW] = 0;
+    return;
+  }
+  const lv = pyr.levels[level] as PyramidLevel;
+  const cells = lv.cells;
+  if (cells === null) {
+    combineCell(pyr, level, row, col, out, o, scratch);
+    return;
+  }
+  const i = (row * lv.width + col) * CELL_STRIDE;
+  for (let j = 0; j < CELL_STRIDE; j++) out[o + j] = cells[i + j] as number;
 }
 
 /** Number of native cells of a cell's clipped footprint along one axis. */
@@ -84,92 +155,72 @@ function span(index: number, factor: number, nativeSize: number): number {
   return Math.min((index + 1) * factor, nativeSize) - index * factor;
 }
 
-function coarsen(fine: PyramidLevel, nativeWidth: number, nativeHeight: number): PyramidLevel {
+/** Combines the (up to four) children of cell (row, col) of `level` into out[o ...]. */
+function combineCell(pyr: Pyramid, level: number, row: number, col: number, out: Float32Array, o: number, s: CellScratch): void {
+  const nativeWidth = pyr.nativeWidth;
+  const nativeHeight = pyr.nativeHeight;
+  const fine = pyr.levels[level - 1] as PyramidLevel;
   const factor = fine.factor * 2;
-  const width = Math.ceil(fine.width / 2);
-  const height = Math.ceil(fine.height / 2);
-  const n = width * height;
-  const mean = sharedFloat32(n);
-  const variance = sharedFloat32(n);
-  const moment3 = sharedFloat32(n);
-  const covCol = sharedFloat32(n);
-  const covRow = sharedFloat32(n);
-  const weight = sharedFloat32(n);
-  // children of one parent: weight, mean, variance, third moment, covariances, offsets
-  const cw = new Float64Array(4);
-  const cm = new Float64Array(4);
-  const cv = new Float64Array(4);
-  const c3 = new Float64Array(4);
-  const cx = new Float64Array(4);
-  const cy = new Float64Array(4);
-  const ox = new Float64Array(4);
-  const oy = new Float64Array(4);
-  for (let row = 0; row < height; row++) {
-    const pRowCentre = row * factor + 0.5 * span(row, factor, nativeHeight);
-    for (let col = 0; col < width; col++) {
-      const pColCentre = col * factor + 0.5 * span(col, factor, nativeWidth);
-      let nk = 0;
-      let wSum = 0;
-      let m1 = 0;
-      for (let dr = 0; dr < 2; dr++) {
-        const fr = row * 2 + dr;
-        if (fr >= fine.height) continue;
-        const nr = span(fr, fine.factor, nativeHeight);
-        for (let dc = 0; dc < 2; dc++) {
-          const fc = col * 2 + dc;
-          if (fc >= fine.width) continue;
-          const k = fr * fine.width + fc;
-          const nc = span(fc, fine.factor, nativeWidth);
-          const w = levelWeight(fine, k) * nr * nc;
-          if (!(w > 0)) continue;
-          cw[nk] = w;
-          cm[nk] = fine.mean[k] as number;
-          cv[nk] = fine.variance ? (fine.variance[k] as number) : 0;
-          c3[nk] = fine.moment3 ? (fine.moment3[k] as number) : 0;
-          cx[nk] = fine.covCol ? (fine.covCol[k] as number) : 0;
-          cy[nk] = fine.covRow ? (fine.covRow[k] as number) : 0;
-          ox[nk] = fc * fine.factor + 0.5 * nc - pColCentre;
-          oy[nk] = fr * fine.factor + 0.5 * nr - pRowCentre;
-          wSum += w;
-          m1 += w * (cm[nk] as number);
-          nk++;
-        }
-      }
-      const area = span(row, factor, nativeHeight) * span(col, factor, nativeWidth);
-      const i = row * width + col;
-      if (!(wSum > 0)) {
-        mean[i] = NaN;
-        weight[i] = 0;
-        continue;
-      }
-      const mu = m1 / wSum;
-      let v = 0;
-      let t = 0;
-      let ex = 0;
-      let ey = 0;
-      let hx = 0;
-      let hy = 0;
-      for (let j = 0; j < nk; j++) {
-        const w = cw[j] as number;
-        const d = (cm[j] as number) - mu;
-        const vj = cv[j] as number;
-        v += w * (vj + d * d);
-        t += w * ((c3[j] as number) + 3 * vj * d + d * d * d);
-        ex += w * (ox[j] as number);
-        ey += w * (oy[j] as number);
-        hx += w * ((cx[j] as number) + d * (ox[j] as number));
-        hy += w * ((cy[j] as number) + d * (oy[j] as number));
-      }
-      mean[i] = mu;
-      variance[i] = v / wSum;
-      moment3[i] = t / wSum;
-      // cov(H, x) = E[(H - mu) x] - E[H - mu] E[x]; E[H - mu] = 0 by construction
-      covCol[i] = hx / wSum;
-      covRow[i] = hy / wSum;
-      weight[i] = wSum / area;
-      void ex;
-      void ey;
+  const child = s.child;
+  const cw = s.cw;
+  const ox = s.ox;
+  const oy = s.oy;
+  if (fine.level > 0 && fine.cells === null && s.next === null) s.next = makeCellScratch();
+  const pRowCentre = row * factor + 0.5 * span(row, factor, nativeHeight);
+  const pColCentre = col * factor + 0.5 * span(col, factor, nativeWidth);
+  let nk = 0;
+  let wSum = 0;
+  let m1 = 0;
+  for (let dr = 0; dr < 2; dr++) {
+    const fr = row * 2 + dr;
+    if (fr >= fine.height) continue;
+    const nr = span(fr, fine.factor, nativeHeight);
+    for (let dc = 0; dc < 2; dc++) {
+      const fc = col * 2 + dc;
+      if (fc >= fine.width) continue;
+      const c = nk * CELL_STRIDE;
+      readCell(pyr, fine.level, fr, fc, child, c, s.next as CellScratch);
+      const nc = span(fc, fine.factor, nativeWidth);
+      const w = (child[c + CELL_WEIGHT] as number) * nr * nc;
+      if (!(w > 0)) continue;
+      cw[nk] = w;
+      ox[nk] = fc * fine.factor + 0.5 * nc - pColCentre;
+      oy[nk] = fr * fine.factor + 0.5 * nr - pRowCentre;
+      wSum += w;
+      m1 += w * (child[c + CELL_MEAN] as number);
+      nk++;
     }
   }
-  return { level: fine.level + 1, factor, width, height, mean, variance, moment3, covCol, covRow, weight };
+  if (!(wSum > 0)) {
+    out[o + CELL_WEIGHT] = 0;
+    out[o + CELL_MEAN] = NaN;
+    out[o + CELL_VARIANCE] = 0;
+    out[o + CELL_MOMENT3] = 0;
+    out[o + CELL_COV_COL] = 0;
+    out[o + CELL_COV_ROW] = 0;
+    return;
+  }
+  const area = span(row, factor, nativeHeight) * span(col, factor, nativeWidth);
+  const mu = m1 / wSum;
+  let v = 0;
+  let t = 0;
+  let hx = 0;
+  let hy = 0;
+  for (let j = 0; j < nk; j++) {
+    const c = j * CELL_STRIDE;
+    const w = cw[j] as number;
+    const d = (child[c + CELL_MEAN] as number) - mu;
+    const vj = child[c + CELL_VARIANCE] as number;
+    v += w * (vj + d * d);
+    t += w * ((child[c + CELL_MOMENT3] as number) + 3 * vj * d + d * d * d);
+    hx += w * ((child[c + CELL_COV_COL] as number) + d * (ox[j] as number));
+    hy += w * ((child[c + CELL_COV_ROW] as number) + d * (oy[j] as number));
+  }
+  out[o + CELL_WEIGHT] = wSum / area;
+  out[o + CELL_MEAN] = mu;
+  out[o + CELL_VARIANCE] = v / wSum;
+  out[o + CELL_MOMENT3] = t / wSum;
+  // cov(H, x) = E[(H - mu) x] - E[H - mu] E[x]; E[H - mu] = 0 by construction
+  out[o + CELL_COV_COL] = hx / wSum;
+  out[o + CELL_COV_ROW] = hy / wSum;
 }

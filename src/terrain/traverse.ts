@@ -14,8 +14,8 @@
 import type { DemGrid } from '../dem/grid.js';
 import type { GridFrame } from './grid-frame.js';
 import { blockGeometry } from './grid-frame.js';
-import type { Pyramid } from './pyramid.js';
-import { levelWeight } from './pyramid.js';
+import type { CellScratch, Pyramid } from './pyramid.js';
+import { CELL_COV_COL, CELL_COV_ROW, CELL_MEAN, CELL_MOMENT3, CELL_STRIDE, CELL_VARIANCE, CELL_WEIGHT, makeCellScratch, readCell } from './pyramid.js';
 import type { ZonePlan } from './zone-plan.js';
 import { EXTENT_ERROR_COEFF, INNER_ZONE_OUTER_M, MIDDLE_ZONE_OUTER_M } from './zone-plan.js';
 import type { TwoPoint } from './cell-effect.js';
@@ -50,6 +50,9 @@ export interface WalkScratch {
   stack: Int32Array;
   geom: Float64Array;
   twoPoint: TwoPoint;
+  /** One cell of a level that is combined when read. */
+  cell: Float32Array;
+  cellScratch: CellScratch;
 }
 
 export function makeWalkScratch(): WalkScratch {
@@ -57,6 +60,8 @@ export function makeWalkScratch(): WalkScratch {
     stack: new Int32Array(3 * 4096),
     geom: new Float64Array(4),
     twoPoint: { wUp: 0.5, dUp: 0, dLo: 0, pUpE: 0, pUpN: 0, pLoE: 0, pLoN: 0 },
+    cell: new Float32Array(CELL_STRIDE),
+    cellScratch: makeCellScratch(),
   };
 }
 
@@ -98,8 +103,29 @@ export function walkPyramid(
     const level = stack[--sp] as number;
     const lv = pyr.levels[level];
     if (!lv) continue;
-    const k = row * lv.width + col;
-    const w = levelWeight(lv, k);
+    // the cell's values: vals[o + CELL_*] (level 0 is read directly from the heights)
+    let vals: Float32Array;
+    let o: number;
+    let w: number;
+    let mean: number;
+    if (level === 0) {
+      const k = row * nW + col;
+      mean = pyr.heights[k] as number;
+      w = pyr.nativeWeight !== null ? (pyr.nativeWeight[k] as number) : Number.isNaN(mean) ? 0 : 1;
+      vals = scratch.cell;
+      o = 0;
+    } else {
+      if (lv.cells !== null) {
+        vals = lv.cells;
+        o = (row * lv.width + col) * CELL_STRIDE;
+      } else {
+        vals = scratch.cell;
+        o = 0;
+        readCell(pyr, level, row, col, vals, 0, scratch.cellScratch);
+      }
+      w = vals[o + CELL_WEIGHT] as number;
+      mean = vals[o + CELL_MEAN] as number;
+    }
     const f = lv.factor;
     const c0 = col * f;
     const c1 = Math.min(c0 + f, nW);
@@ -148,13 +174,13 @@ export function walkPyramid(
     // of it inside the annulus, sampled on 8 x 8 points, so the disc has no staircase edge.
     const inAnnulus = dMax > R || (skipR > 0 && dMin < skipR) ? annulusFraction(e, n, dx, dy, skipR, R) : 1;
     if (!(inAnnulus > 0)) continue;
-    const dMean = (lv.mean[k] as number) - stationHeightM;
+    const dMean = mean - stationHeightM;
     let tc: number;
     if (level === 0 && tooClose) {
       tc = prismCellTc(e, n, dx, dy, dMean, stationHeightM) * w * inAnnulus;
       acc[ACC.prisms] = (acc[ACC.prisms] as number) + 1;
     } else {
-      const sd = lv.variance === null ? 0 : Math.sqrt(lv.variance[k] as number);
+      const sd = level === 0 ? 0 : Math.sqrt(vals[o + CELL_VARIANCE] as number);
       const geocentric = dCentre >= geoFrom;
       if (sd > 0) {
         // covariances per native cell -> metres (rows run south)
@@ -163,9 +189,9 @@ export function walkPyramid(
         twoPointFromMoments(
           dMean,
           sd,
-          lv.moment3 ? (lv.moment3[k] as number) : 0,
-          lv.covCol ? (lv.covCol[k] as number) * cellE : 0,
-          lv.covRow ? -(lv.covRow[k] as number) * cellN : 0,
+          vals[o + CELL_MOMENT3] as number,
+          (vals[o + CELL_COV_COL] as number) * cellE,
+          -(vals[o + CELL_COV_ROW] as number) * cellN,
           0.5 * dx,
           0.5 * dy,
           scratch.twoPoint,

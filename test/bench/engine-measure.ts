@@ -44,9 +44,7 @@ function timed<T>(f: () => T): [T, number] {
 
 function pyramidBytes(p: Pyramid): number {
   let b = 0;
-  for (const lv of p.levels.slice(1)) {
-    for (const a of [lv.mean, lv.variance, lv.moment3, lv.covCol, lv.covRow, lv.weight]) b += a ? a.byteLength : 0;
-  }
+  for (const lv of p.levels) b += lv.cells ? lv.cells.byteLength : 0;
   return b;
 }
 
