@@ -11,6 +11,8 @@ import { loadReportData } from './load-report-data.js';
 import type { ReportData } from './report-data.js';
 import { reliefBackground } from './relief-image.js';
 import { extentOf } from './charts/chart-frame.js';
+import { resolveCrs } from '../stations/crs-registry.js';
+import { makeTransform } from '../stations/transform.js';
 
 export interface WriteReportOptions {
   /** A GeoTIFF DEM to draw as shaded relief under the station maps. */
@@ -39,6 +41,22 @@ export async function writeReport(resultsPath: string, outPath: string, opts: Wr
     const prefer = src.crs.kind === 'geographic' ? 'lonlat' : 'projected';
     data = loadReportData(resultsPath, { ...(opts.columns ? { mapping: opts.columns } : {}), preferCoords: prefer, ...(opts.title ? { title: opts.title } : {}) });
     const want = src.crs.kind === 'geographic' ? 'lonlat' : 'projected';
+    if (want === 'projected' && data.stations.coords === 'lonlat') {
+      // stations given in lon/lat over a projected DEM: map them in the DEM's CRS
+      const toDem = makeTransform(resolveCrs('EPSG:4326'), src.crs);
+      const n = data.stations.x.length;
+      const x = new Float64Array(n).fill(NaN);
+      const y = new Float64Array(n).fill(NaN);
+      for (let i = 0; i < n; i++) {
+        const lon = data.stations.x[i] as number;
+        const lat = data.stations.y[i] as number;
+        if (!(Number.isFinite(lon) && Number.isFinite(lat))) continue;
+        const p = toDem(lon, lat);
+        x[i] = p[0];
+        y[i] = p[1];
+      }
+      data = { ...data, stations: { ...data.stations, coords: 'projected', x, y } };
+    }
     if (data.stations.coords !== want) {
       notes.push(`Shaded relief left out: the DEM is in ${src.crs.label} (${src.crs.kind}) but the stations are mapped in ${data.stations.coords === 'lonlat' ? 'lon/lat' : 'x/y'}.`);
     } else {
