@@ -23,6 +23,12 @@ export function deltaColumns(data: ReportData): { name: string; part: string; va
   return out;
 }
 
+/** Axis label of a part: short enough that neighbouring labels do not touch. */
+function shortLabel(part: string): string {
+  const known: Record<string, string> = { legacy_residual: 'residual', terrain_outside_range: 'beyond range', free_air: 'free-air' };
+  return known[part] ?? part.replace(/_/g, ' ');
+}
+
 export const deltaSection: ReportSection = {
   id: 'legacy-change',
   title: 'Legacy change explanation',
@@ -32,16 +38,16 @@ export const deltaSection: ReportSection = {
     const rows = deltas
       .map((d) => {
         const s = summarize(d.values);
-        return `<tr><th scope="row">${esc(d.part)}</th><td><code>${esc(d.name)}</code></td><td>${s.n}</td><td>${fmt(s.mean)}</td><td>${fmt(s.sd)}</td><td>${fmt(s.min)}</td><td>${fmt(s.max)}</td></tr>`;
+        return `<tr><th scope="row">${esc(d.part)}</th><td>${s.n}</td><td>${fmt(s.mean)}</td><td>${fmt(s.sd)}</td><td>${fmt(s.min)}</td><td>${fmt(s.max)}</td></tr>`;
       })
       .join('');
-    const table = `<table class="stats"><caption>Parts of the change (mGal)</caption><thead><tr><th>Part</th><th>column</th><th>n</th><th>mean</th><th>sd</th><th>min</th><th>max</th></tr></thead><tbody>${rows}</tbody></table>`;
+    const table = `<table class="stats"><caption>Parts of the change (mGal; column delta_&lt;part&gt;_mgal)</caption><thead><tr><th>Part</th><th>n</th><th>mean</th><th>sd</th><th>min</th><th>max</th></tr></thead><tbody>${rows}</tbody></table>`;
     const svg = boxStripChart({
       id: 'legacy-change',
       title: 'Distribution of each part of the change',
       xLabel: 'Part of the change (column delta_<part>_mgal)',
       yLabel: 'Change (mGal)',
-      groups: deltas.map((d) => ({ label: d.part, values: d.values })),
+      groups: deltas.map((d) => ({ label: shortLabel(d.part), values: d.values })),
     });
     return { html: table + figure(svg, 'Boxes: quartiles and median; whiskers: 1.5 × interquartile range; dots: stations.') };
   },
