@@ -48,7 +48,7 @@ describe('buildReport', () => {
 
   it('shows every delta_*_mgal column in the change table', () => {
     const html = buildReport(loadReportData(writeSyntheticResults(dir)));
-    for (const part of ['dem', 'curvature', 'far_zone']) expect(html).toContain(`<code>delta_${part}_mgal</code>`);
+    for (const part of ['dem', 'curvature', 'far_zone']) expect(html).toContain(`<tr><th scope="row">${part}</th>`);
   });
 
   it('shows the provenance from beside the CSV', () => {
