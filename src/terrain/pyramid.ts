@@ -143,7 +143,8 @@ export function readCell(pyr: Pyramid, level: number, row: number, col: number, 
   const lv = pyr.levels[level] as PyramidLevel;
   const cells = lv.cells;
   if (cells === null) {
-    combineCell(pyr, level, row, col, out, o, scratch);
+    if (level === 1) combineNative(pyr, row, col, out, o);
+    else combineCell(pyr, level, row, col, out, o, scratch);
     return;
   }
   const i = (row * lv.width + col) * CELL_STRIDE;
@@ -153,6 +154,71 @@ export function readCell(pyr: Pyramid, level: number, row: number, col: number, 
 /** Number of native cells of a cell's clipped footprint along one axis. */
 function span(index: number, factor: number, nativeSize: number): number {
   return Math.min((index + 1) * factor, nativeSize) - index * factor;
+}
+
+/**
+ * combineCell for a level-1 cell, read straight from the native heights: the children's
+ * variances, third moments and covariances are 0, and adding an exact 0 changes nothing, so
+ * the result is the same bit for bit.
+ */
+function combineNative(pyr: Pyramid, row: number, col: number, out: Float32Array, o: number): void {
+  const nW = pyr.nativeWidth;
+  const nH = pyr.nativeHeight;
+  const heights = pyr.heights;
+  const nativeWeight = pyr.nativeWeight;
+  const c0 = col * 2;
+  const r0 = row * 2;
+  const nc = Math.min(c0 + 2, nW) - c0;
+  const nr = Math.min(r0 + 2, nH) - r0;
+  const pColCentre = c0 + 0.5 * nc;
+  const pRowCentre = r0 + 0.5 * nr;
+  // children in row-major order, as combineCell visits them
+  let wSum = 0;
+  let m1 = 0;
+  for (let dr = 0; dr < nr; dr++) {
+    for (let dc = 0; dc < nc; dc++) {
+      const k = (r0 + dr) * nW + c0 + dc;
+      const h = heights[k] as number;
+      const w = nativeWeight !== null ? (nativeWeight[k] as number) : Number.isNaN(h) ? 0 : 1;
+      if (!(w > 0)) continue;
+      wSum += w;
+      m1 += w * h;
+    }
+  }
+  if (!(wSum > 0)) {
+    out[o + CELL_WEIGHT] = 0;
+    out[o + CELL_MEAN] = NaN;
+    out[o + CELL_VARIANCE] = 0;
+    out[o + CELL_MOMENT3] = 0;
+    out[o + CELL_COV_COL] = 0;
+    out[o + CELL_COV_ROW] = 0;
+    return;
+  }
+  const mu = m1 / wSum;
+  let v = 0;
+  let t = 0;
+  let hx = 0;
+  let hy = 0;
+  for (let dr = 0; dr < nr; dr++) {
+    const oy = r0 + dr + 0.5 - pRowCentre;
+    for (let dc = 0; dc < nc; dc++) {
+      const k = (r0 + dr) * nW + c0 + dc;
+      const h = heights[k] as number;
+      const w = nativeWeight !== null ? (nativeWeight[k] as number) : Number.isNaN(h) ? 0 : 1;
+      if (!(w > 0)) continue;
+      const d = h - mu;
+      v += w * (d * d);
+      t += w * (d * d * d);
+      hx += w * (d * (c0 + dc + 0.5 - pColCentre));
+      hy += w * (d * oy);
+    }
+  }
+  out[o + CELL_WEIGHT] = wSum / (nr * nc);
+  out[o + CELL_MEAN] = mu;
+  out[o + CELL_VARIANCE] = v / wSum;
+  out[o + CELL_MOMENT3] = t / wSum;
+  out[o + CELL_COV_COL] = hx / wSum;
+  out[o + CELL_COV_ROW] = hy / wSum;
 }
 
 /** Combines the (up to four) children of cell (row, col) of `level` into out[o ...]. */

@@ -30,7 +30,7 @@ export interface TerrainContext {
 
 export function makeTerrainContext(fine: TerrainSource, far: TerrainSource | null, plan: ZonePlan): TerrainContext {
   const innerM = Math.max(plan.fieldInnerRadiusM, plan.nearHalfCells * plan.fineCellM);
-  return { fine, far, plan, coverage: makeCoveragePattern(innerM, plan.radiusM) };
+  return { fine, far, plan, coverage: makeCoveragePattern(innerM, plan.radiusM, fine, far) };
 }
 
 /** Flag bits raised by the terrain stage. */
@@ -126,7 +126,7 @@ export function stationTerrain(ctx: TerrainContext, st: StationPosition, out: Fl
     farFrame = makeGridFrame(ctx.far.grid, st.farX, st.farY, st.latDeg);
     walkPyramid(ctx.far.grid, ctx.far.pyramid, farFrame, st.heightM, plan, null, false, acc, scratch.walk);
   }
-  const coverage = coveredFraction(ctx.coverage, grid, frame, ctx.far ? ctx.far.grid : null, farFrame, scratch.gc);
+  const coverage = coveredFraction(ctx.coverage, ctx.fine, frame, ctx.far, farFrame, scratch.gc);
   if (coverage < 1) flags |= TERRAIN_FLAG.dem_partial;
   const inner = (acc[ACC.inner] as number) * UNIT_FACTOR_TO_MGAL;
   const middle = (acc[ACC.middle] as number) * UNIT_FACTOR_TO_MGAL;
