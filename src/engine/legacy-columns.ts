@@ -1,6 +1,6 @@
 /**
  * The legacy input columns of `talus reduce` that the station reader does not know: the
- * per-row datum offset and the printed legacy anomalies. They are found by their canonical
+ * per-row datum offset, the printed legacy anomalies and the height the old reduction used. They are found by their canonical
  * name (case-insensitive) or by a `--columns` entry (canonical=file column), and are read
  * from the passthrough cells of the station table, with file, line, station and column in
  * every message.
@@ -8,9 +8,10 @@
 import { InputError } from '../errors.js';
 import { parseDatumOffsetCell } from '../legacy/gravity-datum.js';
 import type { StationTable } from '../stations/table.js';
+import { metresPer, type LengthUnit } from '../units.js';
 
 /** Canonical names of the legacy columns. */
-export const LEGACY_COLUMN_KEYS = ['datum_offset_mgal', 'legacy_fa_mgal', 'legacy_cba_mgal'] as const;
+export const LEGACY_COLUMN_KEYS = ['datum_offset_mgal', 'legacy_fa_mgal', 'legacy_cba_mgal', 'legacy_height_m'] as const;
 export type LegacyColumnKey = (typeof LEGACY_COLUMN_KEYS)[number];
 
 function isLegacyKey(s: string): s is LegacyColumnKey {
@@ -77,8 +78,25 @@ export function readLegacyColumn(table: StationTable, index: number, what: strin
     }
     if (text.trim() === '') continue;
     const v = Number(text);
-    if (!Number.isFinite(v)) throw new InputError(`"${text}" is not ${what} in mGal`, ctx);
+    if (!Number.isFinite(v)) throw new InputError(`"${text}" is not ${what}`, ctx);
     out[i] = v;
+  }
+  return out;
+}
+
+/**
+ * The heights the legacy reduction used: the `legacy_height_m` column (in the same
+ * --height-units as height_m) where it has a value, else the station height. With it, the
+ * change explanation's delta_height_mgal shows the effect of a re-surveyed height.
+ */
+export function legacyHeightsM(table: StationTable, index: number, heightUnits: LengthUnit): Float64Array {
+  const out = Float64Array.from(table.heightM);
+  if (index < 0) return out;
+  const values = readLegacyColumn(table, index, 'a height (same unit as height_m)');
+  const k = metresPer(heightUnits);
+  for (let i = 0; i < out.length; i++) {
+    const v = values[i] as number;
+    if (Number.isFinite(v)) out[i] = v * k;
   }
   return out;
 }

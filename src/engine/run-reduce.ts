@@ -24,7 +24,7 @@ import type { ReductionSettings } from './reduction-terms.js';
 import { stationFlags } from './station-flags.js';
 import type { ReduceOptions, ReduceSummary } from './run-options.js';
 import { suspectHeightTypeMismatch } from '../legacy/height-type.js';
-import { findLegacyColumn, readLegacyColumn } from './legacy-columns.js';
+import { findLegacyColumn, legacyHeightsM, readLegacyColumn } from './legacy-columns.js';
 import { runGravity } from './legacy-gravity.js';
 import { OUTSIDE_GEOID_FLAG, stationHeights } from './legacy-heights.js';
 import { checkRangeWithinRadius, rangeTerrain, type RangeTerrain } from './legacy-tc-pass.js';
@@ -161,13 +161,13 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
   for (let i = 0; i < n; i++) tcAdded[i] = (v(c.tc)[i] as number) + (settings.useInnerTc ? (table.innerTcMgal[i] as number) : 0);
   const rangeTcMgal = range ? range.tcUnitMgal.map((t) => t * scale) : null;
   const printed = (key: 'legacy_fa_mgal' | 'legacy_cba_mgal'): Float64Array =>
-    readLegacyColumn(table, findLegacyColumn(table, key, o.legacyColumns), 'a legacy anomaly');
+    readLegacyColumn(table, findLegacyColumn(table, key, o.legacyColumns), 'a legacy anomaly in mGal');
   const legacy = legacyOutputs(
     o,
     {
       latDeg: table.latDeg,
       oldGobsMgal: gravity.storedDatumMgal,
-      oldHeightM: table.heightM,
+      oldHeightM: legacyHeightsM(table, findLegacyColumn(table, 'legacy_height_m', o.legacyColumns), o.heightUnits),
       legacyTcMgal: table.legacyTcMgal,
       printedFaMgal: printed('legacy_fa_mgal'),
       printedCbaMgal: printed('legacy_cba_mgal'),

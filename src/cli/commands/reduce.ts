@@ -204,8 +204,9 @@ orthometric_height_m, ellipsoidal_height_m. With --legacy-tc-range: terrain_corr
 --legacy-formulas: legacy_fa_recomputed_mgal, legacy_cba_recomputed_mgal and the delta_*_mgal parts of
 the change from the legacy CBA (they sum to delta_total_mgal); legacy_mismatch flags printed legacy
 anomalies not reproduced within --legacy-tolerance. Legacy columns: legacy_tc_mgal, legacy_fa_mgal,
-legacy_cba_mgal, datum_offset_mgal (mGal added to reach IGSN71; empty = the datum's own), all mappable
-with --columns.
+legacy_cba_mgal, datum_offset_mgal (mGal added to reach IGSN71; empty = the datum's own),
+legacy_height_m (the height the old reduction used, in --height-units; gives delta_height_mgal), all
+mappable with --columns.
 
 Legacy example:
   talus reduce --stations old.csv --columns height_m=ELEV_FT --height-units ft --gravity-datum potsdam \\
