@@ -3,7 +3,7 @@ import { lineElementGzFactor, lineElementGauss2x2GzFactor } from '../../src/kern
 import { pointMassGzFactor } from '../../src/kernels/point-mass.js';
 import { prismGzFactor } from '../../src/kernels/prism.js';
 import { assertClose } from '../helpers/assert-close.js';
-import { gaussLegendre, integrate1d } from './gauss-legendre-nodes.js';
+import { gaussLegendre, integrate1d } from '../helpers/gauss-legendre.js';
 
 const GL16 = gaussLegendre(16);
 

@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { prismGzFactor } from '../../src/kernels/prism.js';
 import { assertClose } from '../helpers/assert-close.js';
-import { gaussLegendre, prismByQuadrature } from './gauss-legendre-nodes.js';
+import { gaussLegendre, prismByQuadrature } from '../helpers/gauss-legendre.js';
 
 const G = 6.6743e-11; // [CODATA2018], the value physics.md's check values use
 const RHO = 2670;

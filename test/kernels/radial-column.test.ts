@@ -3,7 +3,7 @@ import { radialColumnGzFactor } from '../../src/kernels/radial-column.js';
 import { lineElementGzFactor } from '../../src/kernels/line-element.js';
 import { pointMassGzFactor } from '../../src/kernels/point-mass.js';
 import { assertClose } from '../helpers/assert-close.js';
-import { gaussLegendre, integrate1d } from './gauss-legendre-nodes.js';
+import { gaussLegendre, integrate1d } from '../helpers/gauss-legendre.js';
 
 const R = 6_371_000; // mean Earth radius, m (docs/physics.md §4)
 const GL16 = gaussLegendre(16);

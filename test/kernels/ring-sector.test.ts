@@ -2,7 +2,7 @@ import { describe, it, expect } from 'vitest';
 import { hammerSectorGzFactor, HAMMER_ZONES } from '../../src/kernels/ring-sector.js';
 import { prismGzFactor } from '../../src/kernels/prism.js';
 import { assertClose } from '../helpers/assert-close.js';
-import { gaussLegendre, integrate1d } from './gauss-legendre-nodes.js';
+import { gaussLegendre, integrate1d } from '../helpers/gauss-legendre.js';
 
 const G = 6.6743e-11; // [CODATA2018], as in physics.md's check values
 const RHO = 2670;

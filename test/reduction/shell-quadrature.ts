@@ -9,34 +9,10 @@
  * d = R psi (the horizontal distance). Every interval then holds a function that is smooth on
  * its own scale, and 16-point Gauss-Legendre is converged to ~1e-13 on each.
  */
+import { gaussLegendre } from '../helpers/gauss-legendre.js';
 
-/** 16-point Gauss-Legendre nodes and weights on [-1, 1], by Newton iteration on P_16. */
-function gaussLegendre(n: number): { x: Float64Array; w: Float64Array } {
-  const x = new Float64Array(n);
-  const w = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    let z = Math.cos((Math.PI * (i + 0.75)) / (n + 0.5));
-    let dp = 0;
-    for (let it = 0; it < 100; it++) {
-      let p0 = 1;
-      let p1 = z;
-      for (let k = 2; k <= n; k++) {
-        const p2 = ((2 * k - 1) * z * p1 - (k - 1) * p0) / k;
-        p0 = p1;
-        p1 = p2;
-      }
-      dp = (n * (z * p1 - p0)) / (z * z - 1);
-      const dz = p1 / dp;
-      z -= dz;
-      if (Math.abs(dz) < 1e-16) break;
-    }
-    x[i] = z;
-    w[i] = 2 / ((1 - z * z) * dp * dp);
-  }
-  return { x, w };
-}
-
-const GL = gaussLegendre(16);
+const GL16 = gaussLegendre(16);
+const GL = { x: GL16.nodes, w: GL16.weights };
 
 function integrate(fn: (t: number) => number, a: number, b: number): number {
   const mid = 0.5 * (a + b);

@@ -10,41 +10,18 @@ import { assertClose } from '../helpers/assert-close.js';
 import { contextFor, runStation, squareGrid } from '../helpers/synthetic-grid.js';
 import { TR } from '../../src/terrain/station-terrain.js';
 import { G, EARTH_RADIUS_M, CAP_RADIUS_M } from '../../src/constants.js';
+import { gaussLegendre } from '../helpers/gauss-legendre.js';
 
 const RHO = 2670;
 const TO_MGAL = 1e5;
-
-/** Gauss-Legendre nodes/weights on [-1, 1] by Newton iteration on P_n (common practice). */
-function gaussLegendre(n: number): [number[], number[]] {
-  const x: number[] = [];
-  const w: number[] = [];
-  for (let i = 1; i <= n; i++) {
-    let z = Math.cos((Math.PI * (i - 0.25)) / (n + 0.5));
-    let dp = 0;
-    for (let it = 0; it < 100; it++) {
-      let p0 = 1;
-      let p1 = z;
-      for (let k = 2; k <= n; k++) {
-        const p2 = ((2 * k - 1) * z * p1 - (k - 1) * p0) / k;
-        p0 = p1;
-        p1 = p2;
-      }
-      dp = (n * (z * p1 - p0)) / (z * z - 1);
-      const dz = p1 / dp;
-      z -= dz;
-      if (Math.abs(dz) < 1e-15) break;
-    }
-    x.push(z);
-    w.push(2 / ((1 - z * z) * dp * dp));
-  }
-  return [x, w];
-}
 
 /** TC (mGal) of the shell segment rs..R0+H for psi in [psi1, psi2], full azimuth, on the sphere. */
 function sphericalShellTc(stationH: number, plateauH: number, d1: number, d2: number): number {
   const rs = EARTH_RADIUS_M + stationH;
   const rTop = EARTH_RADIUS_M + plateauH;
-  const [gx, gw] = gaussLegendre(12);
+  const rule = gaussLegendre(12);
+  const gx = rule.nodes;
+  const gw = rule.weights;
   const psi1 = d1 / EARTH_RADIUS_M;
   const psi2 = d2 / EARTH_RADIUS_M;
   const segs = 400;

@@ -1,7 +1,7 @@
 /**
  * Gauss-Legendre nodes and weights on [-1, 1] by Newton iteration on the Legendre recurrence
  * (Golub-Welsch-free textbook method, e.g. Press et al., Numerical Recipes, "gauleg"), used by
- * the kernel tests as an independent numerical integrator.
+ * the tests as an independent numerical integrator (kernels, cap, curvature).
  */
 export interface GaussRule {
   readonly nodes: Float64Array;
