@@ -7,26 +7,15 @@ import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { writeArrayBuffer } from 'geotiff';
 import type { DemGrid } from '../src/dem/grid.js';
+import { encodeGeoTiff } from '../src/dem/geotiff-write.js';
 
 /** Writes `g` to `path` (relative to the working directory) and returns gdalinfo's JSON text. */
 export function writeCompressedGeoTiff(path: string, g: DemGrid, epsg: number): string {
-  const geographic = g.crs.kind === 'geographic';
-  const meta: Record<string, unknown> = {
-    width: g.width,
-    height: g.height,
-    ModelPixelScale: [g.cellSizeX, g.cellSizeY, 0],
-    ModelTiepoint: [0, 0, 0, g.originX, g.originY, 0],
-    GTModelTypeGeoKey: geographic ? 2 : 1,
-    GTRasterTypeGeoKey: 1, // pixel-is-area
-    ...(geographic ? { GeographicTypeGeoKey: epsg } : { ProjectedCSTypeGeoKey: epsg }),
-  };
   const dir = mkdtempSync(join(tmpdir(), 'talus-demo-'));
   try {
     const raw = join(dir, 'raw.tif');
-    const buf = writeArrayBuffer(new Float32Array(g.data), meta as Parameters<typeof writeArrayBuffer>[1]);
-    writeFileSync(raw, Buffer.from(buf as ArrayBuffer));
+    writeFileSync(raw, encodeGeoTiff(g, epsg));
     execFileSync('gdal_translate', ['-q', '-a_srs', `EPSG:${epsg}`, '-co', 'COMPRESS=DEFLATE', '-co', 'PREDICTOR=3', '-co', 'ZLEVEL=9', '-co', 'TILED=YES', raw, path], {
       stdio: ['ignore', 'inherit', 'inherit'],
     });
