@@ -68,13 +68,15 @@ function lineElementParts(
   // q2 - q1 = (q2^2 - q1^2)/(q1 + q2)
   const dq = dzsq / (q1 + q2);
   const p = q1 * q2;
+  // one division: the powers of 1/(q1 q2) by multiplication
+  const ip = 1 / p;
+  const ip3 = ip * ip * ip;
   // g(z1) - g(z2) = 1/q1 - 1/q2 = (q2 - q1)/(q1 q2)
-  const d1 = dq / p;
+  const d1 = dq * ip;
   // q1^-3 - q2^-3 = (q2 - q1)(q1^2 + q1 q2 + q2^2)/(q1 q2)^3
-  const p3 = p * p * p;
-  const d3 = (dq * (q1sq + p + q2sq)) / p3;
+  const d3 = dq * (q1sq + p + q2sq) * ip3;
   // q1^-5 - q2^-5 = (q2 - q1)(q2^4 + q2^3 q1 + q2^2 q1^2 + q2 q1^3 + q1^4)/(q1 q2)^5
-  const d5 = (dq * (q2sq * q2sq + q2sq * p + p * p + q1sq * p + q1sq * q1sq)) / (p3 * p * p);
+  const d5 = dq * (q2sq * q2sq + q2sq * p + p * p + q1sq * p + q1sq * q1sq) * (ip3 * ip * ip);
   const dx2 = dx * dx;
   const dy2 = dy * dy;
   const corr = (-(dx2 + dy2) * d3 + 3 * (dx2 * cx * cx + dy2 * cy * cy) * d5) / 24;
@@ -109,10 +111,12 @@ export function curvedExtentCorrectionFactor(
   const t2 = sphereRadiusM * sphereRadiusM - rho2;
   const t = Math.sqrt(t2);
   const drop = rho2 / (sphereRadiusM + t);
-  const dX = cx / t;
-  const dY = cy / t;
-  const dXX = 1 / t + (cx * cx) / (t2 * t);
-  const dYY = 1 / t + (cy * cy) / (t2 * t);
+  const it = 1 / t;
+  const it3 = it * it * it;
+  const dX = cx * it;
+  const dY = cy * it;
+  const dXX = it + cx * cx * it3;
+  const dYY = it + cy * cy * it3;
   const a = dx * dx;
   const b = dy * dy;
   return (
@@ -137,15 +141,17 @@ function curvedSecondDerivatives(
   dYY: number,
 ): number {
   const q2 = rho2 + z * z;
-  const q = Math.sqrt(q2);
-  const q3 = q2 * q;
-  const q5 = q3 * q2;
-  const gz = -z / q3;
-  const gzz = -1 / q3 + (3 * z * z) / q5;
-  const gxx = -1 / q3 + (3 * cx * cx) / q5;
-  const gyy = -1 / q3 + (3 * cy * cy) / q5;
-  const gxz = (3 * cx * z) / q5;
-  const gyz = (3 * cy * z) / q5;
+  // q^-3 and 3 q^-5 from one division
+  const iq = 1 / Math.sqrt(q2);
+  const iq2 = iq * iq;
+  const i3 = iq2 * iq;
+  const i5x3 = 3 * i3 * iq2;
+  const gz = -z * i3;
+  const gzz = z * z * i5x3 - i3;
+  const gxx = cx * cx * i5x3 - i3;
+  const gyy = cy * cy * i5x3 - i3;
+  const gxz = cx * z * i5x3;
+  const gyz = cy * z * i5x3;
   const Gxx = gxx + 2 * gxz * dX + gzz * dX * dX + gz * dXX;
   const Gyy = gyy + 2 * gyz * dY + gzz * dY * dY + gz * dYY;
   return (dx2 * Gxx + dy2 * Gyy) / 24;

@@ -24,7 +24,6 @@ function geoColumnTc(
   nM: number,
   dxM: number,
   dyM: number,
-  drop: number,
   dH: number,
   rs: number,
   omega: number,
@@ -53,12 +52,11 @@ export function columnTc(
 ): number {
   const rs = EARTH_RADIUS_M + stationHeightM;
   const d = Math.sqrt(eM * eM + nM * nM);
-  const drop = sphereDropM(d, rs);
   if (geocentric) {
     const omega = (dxM * dyM) / (EARTH_RADIUS_M * EARTH_RADIUS_M);
-    return geoColumnTc(eM, nM, dxM, dyM, drop, dHM, rs, omega, Math.cos(d / EARTH_RADIUS_M));
+    return geoColumnTc(eM, nM, dxM, dyM, dHM, rs, omega, Math.cos(d / EARTH_RADIUS_M));
   }
-  return flatColumnTc(eM, nM, dxM, dyM, drop, dHM);
+  return flatColumnTc(eM, nM, dxM, dyM, sphereDropM(d, rs), dHM);
 }
 
 /**
@@ -102,8 +100,9 @@ export function twoPointFromMoments(
   let wUp = Number.isFinite(skew) ? 0.5 * (1 - skew / Math.sqrt(4 + skew * skew)) : 0.5;
   wUp = Math.min(1 - MIN_POINT_WEIGHT, Math.max(MIN_POINT_WEIGHT, wUp));
   const wLo = 1 - wUp;
-  const dUp = dMeanM + sdM * Math.sqrt(wLo / wUp);
-  const dLo = dMeanM - sdM * Math.sqrt(wUp / wLo);
+  const ratio = Math.sqrt(wLo / wUp);
+  const dUp = dMeanM + sdM * ratio;
+  const dLo = dMeanM - sdM / ratio;
   const k = 1 / (wUp * (dUp - dLo));
   const pUpE = Math.max(-halfE, Math.min(halfE, covE * k));
   const pUpN = Math.max(-halfN, Math.min(halfN, covN * k));
