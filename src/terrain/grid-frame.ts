@@ -32,19 +32,35 @@ export interface GridFrame {
 }
 
 export function makeGridFrame(grid: DemGrid, stationX: number, stationY: number, stationLatDeg: number): GridFrame {
-  const geographic = grid.crs.kind === 'geographic';
-  return {
-    geographic,
-    originX: grid.originX,
-    originY: grid.originY,
-    cellSizeX: grid.cellSizeX,
-    cellSizeY: grid.cellSizeY,
-    unitM: geographic ? NaN : grid.crs.linearUnitM,
-    stationX,
-    stationY,
-    mPerDegNorth: meridianRadiusM(stationLatDeg) * DEG,
-    nPerDeg: primeVerticalRadiusM(stationLatDeg) * DEG,
+  const f: GridFrame = {
+    geographic: false,
+    originX: 0,
+    originY: 0,
+    cellSizeX: 1,
+    cellSizeY: 1,
+    unitM: NaN,
+    stationX: 0,
+    stationY: 0,
+    mPerDegNorth: NaN,
+    nPerDeg: NaN,
   };
+  setGridFrame(f, grid, stationX, stationY, stationLatDeg);
+  return f;
+}
+
+/** Re-aims an existing frame at another grid or station (no allocation per station). */
+export function setGridFrame(f: GridFrame, grid: DemGrid, stationX: number, stationY: number, stationLatDeg: number): void {
+  const geographic = grid.crs.kind === 'geographic';
+  f.geographic = geographic;
+  f.originX = grid.originX;
+  f.originY = grid.originY;
+  f.cellSizeX = grid.cellSizeX;
+  f.cellSizeY = grid.cellSizeY;
+  f.unitM = geographic ? NaN : grid.crs.linearUnitM;
+  f.stationX = stationX;
+  f.stationY = stationY;
+  f.mPerDegNorth = meridianRadiusM(stationLatDeg) * DEG;
+  f.nPerDeg = primeVerticalRadiusM(stationLatDeg) * DEG;
 }
 
 /**

@@ -54,36 +54,64 @@ export interface NearZoneResult {
   bounds: [number, number, number, number];
 }
 
-const scratch = new Float64Array(4);
-
-/** Window bounds (west, east, south, north) in metres relative to the station. */
-export function nearWindowBounds(frame: GridFrame, spec: NearZoneSpec): [number, number, number, number] {
-  const m = spec.halfCells;
-  blockGeometry(frame, spec.col - m, spec.col + m + 1, spec.row - m, spec.row + m + 1, scratch);
-  const e = scratch[0] as number;
-  const n = scratch[1] as number;
-  const w = scratch[2] as number;
-  const h = scratch[3] as number;
-  return [e - w / 2, e + w / 2, n - h / 2, n + h / 2];
+/** Reusable state of integrateNearZone (one per thread): its result and small work arrays. */
+export interface NearZoneScratch {
+  result: NearZoneResult;
+  /** Grid coordinates of one point. */
+  gc: Float64Array;
+  /** Block geometry of the window. */
+  geom: Float64Array;
 }
 
-export function integrateNearZone(grid: DemGrid, frame: GridFrame, spec: NearZoneSpec): NearZoneResult {
-  const bounds = nearWindowBounds(frame, spec);
-  const [west, east, south, north] = bounds;
-  // Corners counter-clockwise from south-east; side k runs from corner k to corner k+1.
-  const cx = [east, east, west, west];
-  const cy = [south, north, north, south];
+export function makeNearZoneScratch(): NearZoneScratch {
+  return { result: { factor: 0, missing: 0, points: 0, bounds: [0, 0, 0, 0] }, gc: new Float64Array(2), geom: new Float64Array(4) };
+}
+
+/** Window bounds (west, east, south, north) in metres relative to the station. */
+export function nearWindowBounds(
+  frame: GridFrame,
+  spec: NearZoneSpec,
+  out: [number, number, number, number] = [0, 0, 0, 0],
+  geom: Float64Array = new Float64Array(4),
+): [number, number, number, number] {
+  const m = spec.halfCells;
+  blockGeometry(frame, spec.col - m, spec.col + m + 1, spec.row - m, spec.row + m + 1, geom);
+  const e = geom[0] as number;
+  const n = geom[1] as number;
+  const w = geom[2] as number;
+  const h = geom[3] as number;
+  out[0] = e - w / 2;
+  out[1] = e + w / 2;
+  out[2] = n - h / 2;
+  out[3] = n + h / 2;
+  return out;
+}
+
+/**
+ * Integrates the window. The result lives in `scratch` (pass one per thread so that nothing is
+ * allocated per station) and is overwritten by the next call with the same scratch.
+ */
+export function integrateNearZone(grid: DemGrid, frame: GridFrame, spec: NearZoneSpec, scratch: NearZoneScratch = makeNearZoneScratch()): NearZoneResult {
+  const result = scratch.result;
+  const bounds = nearWindowBounds(frame, spec, result.bounds, scratch.geom);
+  const west = bounds[0];
+  const east = bounds[1];
+  const south = bounds[2];
+  const north = bounds[3];
   let factor = 0;
-  const counts = { missing: 0, points: 0 };
-  const gc = new Float64Array(2);
+  result.missing = 0;
+  result.points = 0;
+  const gc = scratch.gc;
   localToGrid(frame, 0, 0, gc);
   const atStation = bilinearHeight(grid, gc[0] as number, gc[1] as number) + spec.adjustM - spec.stationHeightM;
   const offsetAtStation = Number.isFinite(atStation) ? Math.abs(atStation) : 0;
   for (let side = 0; side < 4; side++) {
-    const ax = cx[side] as number;
-    const ay = cy[side] as number;
-    const bx = cx[(side + 1) % 4] as number;
-    const by = cy[(side + 1) % 4] as number;
+    // Corners counter-clockwise from south-east (ES, EN, WN, WS); side k runs from corner k
+    // to corner k + 1.
+    const ax = side < 2 ? east : west;
+    const ay = side === 0 || side === 3 ? south : north;
+    const bx = side === 0 || side === 3 ? east : west;
+    const by = side < 2 ? north : south;
     const ta = Math.atan2(ay, ax);
     let tb = Math.atan2(by, bx);
     while (tb <= ta) tb += 2 * Math.PI;
@@ -112,25 +140,26 @@ export function integrateNearZone(grid: DemGrid, frame: GridFrame, spec: NearZon
         if (offsetAtStation > 0 && rho0 < spec.segmentM) {
           let b = Math.max(rho0, offsetAtStation / 8);
           if (b > a) {
-            ray += raySegment(grid, frame, spec, ct, st, a, b, gc, counts);
+            ray += raySegment(grid, frame, spec, ct, st, a, b, gc, result);
             a = b;
           }
           while (a < spec.segmentM && a < rhoMax) {
             b = Math.min(rhoMax, spec.segmentM, a * 4);
-            ray += raySegment(grid, frame, spec, ct, st, a, b, gc, counts);
+            ray += raySegment(grid, frame, spec, ct, st, a, b, gc, result);
             a = b;
           }
         }
         if (rhoMax > a) {
           const nRho = Math.max(1, Math.ceil((rhoMax - a) / spec.segmentM));
           const hRho = (rhoMax - a) / nRho;
-          for (let ir = 0; ir < nRho; ir++) ray += raySegment(grid, frame, spec, ct, st, a + ir * hRho, a + (ir + 1) * hRho, gc, counts);
+          for (let ir = 0; ir < nRho; ir++) ray += raySegment(grid, frame, spec, ct, st, a + ir * hRho, a + (ir + 1) * hRho, gc, result);
         }
         factor += wTheta * ray;
       }
     }
   }
-  return { factor, missing: counts.missing, points: counts.points, bounds };
+  result.factor = factor;
+  return result;
 }
 
 /** 3-point Gauss-Legendre over rho in [a, b] along one ray (direction ct, st). */
@@ -143,7 +172,7 @@ function raySegment(
   a: number,
   b: number,
   gc: Float64Array,
-  counts: { missing: number; points: number },
+  counts: NearZoneResult,
 ): number {
   const half = 0.5 * (b - a);
   const mid = 0.5 * (a + b);

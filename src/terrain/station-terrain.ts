@@ -7,10 +7,11 @@ import type { DemGrid } from '../dem/grid.js';
 import { G, UNIT_DENSITY_KG_M3 } from '../constants.js';
 import { MGAL } from '../units.js';
 import type { GridFrame } from './grid-frame.js';
-import { bilinearHeight, makeGridFrame } from './grid-frame.js';
+import { bilinearHeight, makeGridFrame, setGridFrame } from './grid-frame.js';
 import type { Pyramid } from './pyramid.js';
 import type { ZonePlan } from './zone-plan.js';
-import { integrateNearZone } from './near-zone.js';
+import type { NearZoneScratch, NearZoneSpec } from './near-zone.js';
+import { integrateNearZone, makeNearZoneScratch } from './near-zone.js';
 import type { WalkScratch, WindowCells } from './traverse.js';
 import { ACC, makeWalkScratch, walkPyramid } from './traverse.js';
 import type { CoveragePattern } from './coverage.js';
@@ -74,17 +75,31 @@ export interface StationPosition {
 /** Mass factor (m) → mGal at unit density. */
 const UNIT_FACTOR_TO_MGAL = (G * UNIT_DENSITY_KG_M3) / MGAL;
 
+/** Per-thread state reused from station to station: nothing is allocated per station. */
 export class TerrainScratch {
   readonly acc = new Float64Array(ACC.size);
   readonly walk: WalkScratch = makeWalkScratch();
   readonly gc = new Float64Array(2);
+  readonly near: NearZoneScratch = makeNearZoneScratch();
+  readonly nearSpec: NearZoneSpec = { col: 0, row: 0, halfCells: 0, stationHeightM: 0, adjustM: 0, taperM: 0, innerSkipM: 0, segmentM: 1 };
+  readonly window: WindowCells = { c0: 1, c1: 0, r0: 1, r1: 0 };
+  /** Station frames of the fine and the far DEM, re-aimed per station (setGridFrame). */
+  fineFrame: GridFrame | null = null;
+  farFrame: GridFrame | null = null;
+}
+
+function aimFrame(current: GridFrame | null, grid: DemGrid, x: number, y: number, latDeg: number): GridFrame {
+  if (current === null) return makeGridFrame(grid, x, y, latDeg);
+  setGridFrame(current, grid, x, y, latDeg);
+  return current;
 }
 
 export function stationTerrain(ctx: TerrainContext, st: StationPosition, out: Float64Array, scratch: TerrainScratch): void {
   out.fill(NaN);
   const { grid } = ctx.fine;
   const plan = ctx.plan;
-  const frame = makeGridFrame(grid, st.fineX, st.fineY, st.latDeg);
+  const frame = aimFrame(scratch.fineFrame, grid, st.fineX, st.fineY, st.latDeg);
+  scratch.fineFrame = frame;
   const colF = (st.fineX - grid.originX) / grid.cellSizeX - 0.5;
   const rowF = (grid.originY - st.fineY) / grid.cellSizeY - 0.5;
   const col = Math.floor(colF + 0.5);
@@ -105,25 +120,30 @@ export function stationTerrain(ctx: TerrainContext, st: StationPosition, out: Fl
   const acc = scratch.acc;
   acc.fill(0);
   const m = plan.nearHalfCells;
-  const near = integrateNearZone(grid, frame, {
-    col,
-    row,
-    halfCells: m,
-    stationHeightM: st.heightM,
-    adjustM: adjust,
-    taperM: plan.taperM,
-    innerSkipM: plan.fieldInnerRadiusM,
-    segmentM: plan.nearSegmentM,
-  });
+  const spec = scratch.nearSpec;
+  spec.col = col;
+  spec.row = row;
+  spec.halfCells = m;
+  spec.stationHeightM = st.heightM;
+  spec.adjustM = adjust;
+  spec.taperM = plan.taperM;
+  spec.innerSkipM = plan.fieldInnerRadiusM;
+  spec.segmentM = plan.nearSegmentM;
+  const near = integrateNearZone(grid, frame, spec, scratch.near);
   acc[ACC.inner] = near.factor;
   acc[ACC.nearPoints] = near.points;
   if (near.missing > 0) flags |= TERRAIN_FLAG.nodata_near;
-  const window: WindowCells = { c0: col - m, c1: col + m, r0: row - m, r1: row + m };
+  const window = scratch.window;
+  window.c0 = col - m;
+  window.c1 = col + m;
+  window.r0 = row - m;
+  window.r1 = row + m;
   walkPyramid(grid, ctx.fine.pyramid, frame, st.heightM, plan, window, true, acc, scratch.walk);
   if ((acc[ACC.missingNear] as number) > 0) flags |= TERRAIN_FLAG.nodata_near;
   let farFrame: GridFrame | null = null;
   if (ctx.far) {
-    farFrame = makeGridFrame(ctx.far.grid, st.farX, st.farY, st.latDeg);
+    farFrame = aimFrame(scratch.farFrame, ctx.far.grid, st.farX, st.farY, st.latDeg);
+    scratch.farFrame = farFrame;
     walkPyramid(ctx.far.grid, ctx.far.pyramid, farFrame, st.heightM, plan, null, false, acc, scratch.walk);
   }
   const coverage = coveredFraction(ctx.coverage, ctx.fine, frame, ctx.far, farFrame, scratch.gc);
