@@ -14,8 +14,26 @@
 import type { DemGrid } from '../dem/grid.js';
 import type { GridFrame } from './grid-frame.js';
 import { blockGeometry } from './grid-frame.js';
-import type { CellScratch, Pyramid } from './pyramid.js';
-import { CELL_COV_COL, CELL_COV_ROW, CELL_MEAN, CELL_MOMENT3, CELL_STRIDE, CELL_VARIANCE, CELL_WEIGHT, makeCellScratch, readCell } from './pyramid.js';
+import type { Pyramid } from './pyramid.js';
+import {
+  CELL_LO_OFFSET,
+  CELL_MEAN,
+  CELL_P_UP_COL,
+  CELL_P_UP_ROW,
+  CELL_SD,
+  CELL_STRIDE,
+  CELL_UP_OFFSET,
+  CELL_W_UP,
+  CELL_WEIGHT,
+  level1Moments,
+  MOM_COV_COL,
+  MOM_COV_ROW,
+  MOM_MEAN,
+  MOM_MOMENT3,
+  MOM_STRIDE,
+  MOM_VARIANCE,
+  MOM_WEIGHT,
+} from './pyramid.js';
 import type { ZonePlan } from './zone-plan.js';
 import { EXTENT_ERROR_COEFF, INNER_ZONE_OUTER_M, MIDDLE_ZONE_OUTER_M } from './zone-plan.js';
 import type { TwoPoint } from './cell-effect.js';
@@ -50,9 +68,8 @@ export interface WalkScratch {
   stack: Int32Array;
   geom: Float64Array;
   twoPoint: TwoPoint;
-  /** One cell of a level that is combined when read. */
-  cell: Float32Array;
-  cellScratch: CellScratch;
+  /** Moments of one level-1 cell (combined when read). */
+  moments: Float32Array;
 }
 
 export function makeWalkScratch(): WalkScratch {
@@ -60,8 +77,7 @@ export function makeWalkScratch(): WalkScratch {
     stack: new Int32Array(3 * 4096),
     geom: new Float64Array(4),
     twoPoint: { wUp: 0.5, dUp: 0, dLo: 0, pUpE: 0, pUpN: 0, pLoE: 0, pLoN: 0 },
-    cell: new Float32Array(CELL_STRIDE),
-    cellScratch: makeCellScratch(),
+    moments: new Float32Array(MOM_STRIDE),
   };
 }
 
@@ -103,28 +119,23 @@ export function walkPyramid(
     const level = stack[--sp] as number;
     const lv = pyr.levels[level];
     if (!lv) continue;
-    // the cell's values: vals[o + CELL_*] (level 0 is read directly from the heights)
-    let vals: Float32Array;
-    let o: number;
+    // the cell's values: stored cells[o + CELL_*] from level 2, moments of level 1, level 0 read directly
+    const cells = lv.cells;
+    const o = (row * lv.width + col) * CELL_STRIDE;
+    const moments = scratch.moments;
     let w: number;
     let mean: number;
-    if (level === 0) {
+    if (cells !== null) {
+      w = cells[o + CELL_WEIGHT] as number;
+      mean = cells[o + CELL_MEAN] as number;
+    } else if (level === 0) {
       const k = row * nW + col;
       mean = pyr.heights[k] as number;
       w = pyr.nativeWeight !== null ? (pyr.nativeWeight[k] as number) : Number.isNaN(mean) ? 0 : 1;
-      vals = scratch.cell;
-      o = 0;
     } else {
-      if (lv.cells !== null) {
-        vals = lv.cells;
-        o = (row * lv.width + col) * CELL_STRIDE;
-      } else {
-        vals = scratch.cell;
-        o = 0;
-        readCell(pyr, level, row, col, vals, 0, scratch.cellScratch);
-      }
-      w = vals[o + CELL_WEIGHT] as number;
-      mean = vals[o + CELL_MEAN] as number;
+      level1Moments(pyr, row, col, moments, 0);
+      w = moments[MOM_WEIGHT] as number;
+      mean = moments[MOM_MEAN] as number;
     }
     const f = lv.factor;
     const c0 = col * f;
@@ -180,27 +191,47 @@ export function walkPyramid(
       tc = prismCellTc(e, n, dx, dy, dMean, stationHeightM) * w * inAnnulus;
       acc[ACC.prisms] = (acc[ACC.prisms] as number) + 1;
     } else {
-      const sd = level === 0 ? 0 : Math.sqrt(vals[o + CELL_VARIANCE] as number);
       const geocentric = dCentre >= geoFrom;
-      if (sd > 0) {
-        // covariances per native cell -> metres (rows run south)
-        const cellE = dx / (c1 - c0);
-        const cellN = dy / (r1 - r0);
-        twoPointFromMoments(
-          dMean,
-          sd,
-          vals[o + CELL_MOMENT3] as number,
-          (vals[o + CELL_COV_COL] as number) * cellE,
-          -(vals[o + CELL_COV_ROW] as number) * cellN,
-          0.5 * dx,
-          0.5 * dy,
-          scratch.twoPoint,
-        );
-        tc = coarseCellTc(e, n, dx, dy, scratch.twoPoint, w * inAnnulus, stationHeightM, geocentric);
-      } else {
-        tc = w * inAnnulus * columnTc(e, n, dx, dy, dMean, stationHeightM, geocentric);
+      const tp = scratch.twoPoint;
+      let twoPoints = false;
+      if (cells !== null) {
+        // stored two-point form; offsets per native cell -> metres (rows run south)
+        if ((cells[o + CELL_SD] as number) > 0) {
+          twoPoints = true;
+          const wUp = cells[o + CELL_W_UP] as number;
+          const wLo = 1 - wUp;
+          const pUpE = (cells[o + CELL_P_UP_COL] as number) * (dx / (c1 - c0));
+          const pUpN = -(cells[o + CELL_P_UP_ROW] as number) * (dy / (r1 - r0));
+          tp.wUp = wUp;
+          tp.dUp = dMean + (cells[o + CELL_UP_OFFSET] as number);
+          tp.dLo = dMean - (cells[o + CELL_LO_OFFSET] as number);
+          tp.pUpE = pUpE;
+          tp.pUpN = pUpN;
+          tp.pLoE = (-wUp * pUpE) / wLo;
+          tp.pLoN = (-wUp * pUpN) / wLo;
+        }
+      } else if (level === 1) {
+        const sd = Math.sqrt(moments[MOM_VARIANCE] as number);
+        if (sd > 0) {
+          twoPoints = true;
+          // covariances per native cell -> metres (rows run south)
+          const cellE = dx / (c1 - c0);
+          const cellN = dy / (r1 - r0);
+          twoPointFromMoments(
+            dMean,
+            sd,
+            moments[MOM_MOMENT3] as number,
+            (moments[MOM_COV_COL] as number) * cellE,
+            -(moments[MOM_COV_ROW] as number) * cellN,
+            0.5 * dx,
+            0.5 * dy,
+            tp,
+          );
+        }
       }
-      const evals = sd > 0 ? 2 : 1;
+      if (twoPoints) tc = coarseCellTc(e, n, dx, dy, tp, w * inAnnulus, stationHeightM, geocentric);
+      else tc = w * inAnnulus * columnTc(e, n, dx, dy, dMean, stationHeightM, geocentric);
+      const evals = twoPoints ? 2 : 1;
       if (geocentric) acc[ACC.geocentric] = (acc[ACC.geocentric] as number) + evals;
       else acc[ACC.columns] = (acc[ACC.columns] as number) + evals;
       const q = size / dCentre;
