@@ -6,11 +6,11 @@
  * 23 % of the radius between rings near R, 7.5 degrees around), so a gap smaller than that
  * can be missed; gaps in the inner zone are caught exactly by the walk itself (nodata_near).
  *
- * Each sample is tested at the resolution of the pattern there: in the cell of the coarsest
- * pyramid level that is no larger than the sample spacing (a coarse cell holds data when its
- * weight is > 0; near the station, where that level is 0 or 1, the native cell itself). So a
- * fully covered disc gives exactly 1, a gap as large as the spacing is found as before, and the
- * look-ups mostly land on cells the walk has just read instead of 1536 scattered native cells.
+ * Each sample first looks at the cell of the coarsest pyramid level that is no larger than the
+ * sample spacing: weight 1 means every native cell under it holds data, weight 0 (for a DEM
+ * without native weights) that none does; only a partly filled cell sends the sample on to its
+ * native cell. The answer is the native look-up's, always, but most samples land on a few
+ * coarse cells the walk has just read instead of 1536 scattered native cells.
  */
 import type { DemGrid } from '../dem/grid.js';
 import type { GridFrame } from './grid-frame.js';
@@ -88,11 +88,15 @@ function hasData(src: CoverageSource, level: number, frame: GridFrame, e: number
   const col = Math.round(gc[0] as number);
   const row = Math.round(gc[1] as number);
   if (col < 0 || row < 0 || col >= grid.width || row >= grid.height) return false;
-  if (level === 0) return !Number.isNaN(grid.data[row * grid.width + col] as number);
-  const lv = src.pyramid.levels[level];
+  const lv = level > 0 ? src.pyramid.levels[level] : undefined;
   const cells = lv ? lv.cells : null;
-  if (!lv || cells === null) return !Number.isNaN(grid.data[row * grid.width + col] as number);
-  return (cells[((row >> level) * lv.width + (col >> level)) * CELL_STRIDE + CELL_WEIGHT] as number) > 0;
+  if (lv && cells !== null) {
+    const w = cells[((row >> level) * lv.width + (col >> level)) * CELL_STRIDE + CELL_WEIGHT] as number;
+    // weight 1: every native cell under it holds data; weight 0 without native weights: none does
+    if (w === 1) return true;
+    if (w === 0 && src.pyramid.nativeWeight === null) return false;
+  }
+  return !Number.isNaN(grid.data[row * grid.width + col] as number);
 }
 
 /** Area-weighted fraction of the pattern's samples that fall on data, 0..1. */
