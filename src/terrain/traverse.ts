@@ -151,10 +151,18 @@ export function walkPyramid(
     const oy = Math.max(Math.abs(n) - 0.5 * dy, 0);
     const dMin = Math.sqrt(ox * ox + oy * oy);
     if (dMin > R) continue;
-    if (checkNearData && w < 1 && dMin < INNER_ZONE_OUTER_M) acc[ACC.missingNear] = (acc[ACC.missingNear] as number) + 1;
-    if (!(w > 0)) continue;
+    // Missing data within the inner zone is counted on the cells that are not split (a coarse
+    // cell that holds the station and a gap kilometres away is not evidence of a near gap).
+    const nearGap = checkNearData && w < 1 && dMin < INNER_ZONE_OUTER_M;
+    if (!(w > 0)) {
+      if (nearGap) acc[ACC.missingNear] = (acc[ACC.missingNear] as number) + 1;
+      continue;
+    }
     const overlapsWindow = c0 <= win.c1 && c1 - 1 >= win.c0 && r0 <= win.r1 && r1 - 1 >= win.r0;
-    if (level === 0 && overlapsWindow) continue; // integrated by the near zone
+    if (level === 0 && overlapsWindow) {
+      if (nearGap) acc[ACC.missingNear] = (acc[ACC.missingNear] as number) + 1;
+      continue; // integrated by the near zone
+    }
     const size = Math.max(dx, dy);
     const ex = Math.abs(e) + 0.5 * dx;
     const ey = Math.abs(n) + 0.5 * dy;
@@ -180,6 +188,7 @@ export function walkPyramid(
       }
       continue;
     }
+    if (nearGap) acc[ACC.missingNear] = (acc[ACC.missingNear] as number) + 1;
     const dCentre = Math.sqrt(e * e + n * n);
     // A cell cut by the outer radius (or by the field inner radius) counts with the fraction
     // of it inside the annulus, sampled on 8 x 8 points, so the disc has no staircase edge.
