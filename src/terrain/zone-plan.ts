@@ -15,8 +15,9 @@
  *   conservative figure: the whole TC of steep mountain stations is 10-50 mGal [Zahorec2010]).
  * - Native cells nearer than acceptRatio cells are exact prisms [Nagy2000]; the station's own
  *   window is integrated over a surface through the station (near-zone.ts).
- * - Coarse cells carry mean and variance; each is evaluated at mean +- sd (a two-point rule
- *   that reproduces the first two moments of the height distribution exactly).
+ * - Coarse cells carry the mean, variance, third moment and height-position covariances of
+ *   their native heights; each is evaluated as two columns (the two-point rule of
+ *   cell-effect.ts, which reproduces all of them; stored in that form from pyramid level 2).
  * - Beyond Hammer zone M (21.9 km, the reported outer zone) cells are radial columns in
  *   geocentric geometry; nearer, flat geometry with every cell lowered by the sphere's drop
  *   (physics.md §5 "Earth curvature": ~0.0004 mGal residual).
