@@ -15,25 +15,8 @@ import type { DemGrid } from '../dem/grid.js';
 import type { GridFrame } from './grid-frame.js';
 import { blockGeometry } from './grid-frame.js';
 import type { Pyramid } from './pyramid.js';
-import {
-  CELL_LO_OFFSET,
-  CELL_MEAN,
-  CELL_P_UP_COL,
-  CELL_P_UP_ROW,
-  CELL_SD,
-  CELL_STRIDE,
-  CELL_UP_OFFSET,
-  CELL_W_UP,
-  CELL_WEIGHT,
-  level1Moments,
-  MOM_COV_COL,
-  MOM_COV_ROW,
-  MOM_MEAN,
-  MOM_MOMENT3,
-  MOM_STRIDE,
-  MOM_VARIANCE,
-  MOM_WEIGHT,
-} from './pyramid.js';
+import { CELL_LO_OFFSET, CELL_MEAN, CELL_P_UP_COL, CELL_P_UP_ROW, CELL_SD, CELL_STRIDE, CELL_UP_OFFSET, CELL_W_UP, CELL_WEIGHT } from './pyramid.js';
+import { level1Moments, MOM_COV_COL, MOM_COV_ROW, MOM_MEAN, MOM_MOMENT3, MOM_STRIDE, MOM_VARIANCE, MOM_WEIGHT } from './cell-moments.js';
 import type { ZonePlan } from './zone-plan.js';
 import { EXTENT_ERROR_COEFF, INNER_ZONE_OUTER_M, MIDDLE_ZONE_OUTER_M } from './zone-plan.js';
 import type { TwoPoint } from './cell-effect.js';
