@@ -7,18 +7,10 @@ import { G } from '../src/constants.js';
 import { prismGzFactor } from '../src/kernels/prism.js';
 import { toMgal } from '../src/units.js';
 import { SURVEY_CENTRE_E_M, SURVEY_CENTRE_N_M } from './demo-terrain.js';
+import { mulberry32 } from '../test/helpers/seeded-random.js';
 
-/** Seeded PRNG (mulberry32): uniform [0, 1). */
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { mulberry32 };
+
 
 /** Standard normal deviates from a uniform source (Box-Muller). */
 export function gaussian(rand: () => number): () => number {

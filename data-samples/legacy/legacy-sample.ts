@@ -9,6 +9,7 @@ import { reduceWithFormulas } from '../../src/legacy/formula-set.js';
 import type { FormulaSet } from '../../src/legacy/formula-set.js';
 import { POTSDAM_TO_IGSN71_MGAL } from '../../src/legacy/gravity-datum.js';
 import { FOOT_M } from '../../src/units.js';
+import { mulberry32 as uniformSource } from '../../test/helpers/seeded-random.js';
 
 /** One station of the modern list (IGSN71 gravity, metres). */
 export interface ModernStation {
@@ -51,17 +52,6 @@ export const LEGACY_SAMPLE_HEADER = [
   'legacy_cba_mgal',
 ] as const;
 
-/** Deterministic uniform numbers in [0, 1) (mulberry32). */
-function uniformSource(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const roundTo = (v: number, step: number): number => Math.round(v / step) * step;
 

@@ -9,6 +9,7 @@ import { gridFromFunction } from '../../src/dem/grid.js';
 import { bilinearHeight } from '../../src/terrain/grid-frame.js';
 import type { StationArrays } from '../../src/engine/batch.js';
 import { sharedFloat64 } from '../../src/engine/batch.js';
+import { makeUniform } from '../helpers/seeded-random.js';
 
 export const FINE_CELL_M = 30;
 export const FINE_CELLS = 2000;
@@ -52,15 +53,6 @@ export function makeFineGrid(): DemGrid {
 
 export function makeFarGrid(): DemGrid {
   return squareGrid(FAR_CELLS, FAR_CELL_M, 'synthetic far-zone DEM, 1 km');
-}
-
-/** Deterministic uniform numbers in [0, 1) (LCG). */
-export function makeUniform(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
-    return state / 4294967296;
-  };
 }
 
 /**

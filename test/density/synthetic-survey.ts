@@ -13,6 +13,10 @@ import { normalGravity } from '../../src/reduction/normal-gravity.js';
 import { freeAirCorrection } from '../../src/reduction/free-air.js';
 import { G } from '../../src/constants.js';
 import { MGAL } from '../../src/units.js';
+import { mulberry32 } from '../helpers/seeded-random.js';
+
+/** Seeded uniform generator. */
+export const rng = mulberry32;
 
 /** Terrain model: CELLS x CELLS prisms of CELL_M metres, heights above a flat datum at 0 m. */
 const CELLS = 48;
@@ -21,17 +25,6 @@ const CELL_M = 125;
 export const EAST0_M = 500_000;
 export const NORTH0_M = 4_100_000;
 
-/** Seeded uniform generator (mulberry32; public-domain algorithm, common practice in tests). */
-export function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 /** Standard normal deviate by Box-Muller. */
 export function gauss(u: () => number): number {
   return Math.sqrt(-2 * Math.log(1 - u())) * Math.cos(2 * Math.PI * u());

@@ -81,12 +81,3 @@ export function prismByQuadrature(
     panels,
   );
 }
-
-/** Deterministic uniform [0, 1) generator (32-bit LCG, Numerical Recipes constants). */
-export function makeUniform(seed: number): () => number {
-  let state = seed >>> 0;
-  return () => {
-    state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
-    return state / 4294967296;
-  };
-}

@@ -3,7 +3,7 @@ import { createNeumaierState, neumaierAdd, neumaierReset, neumaierResult } from 
 import { sumPrismsGzFactor } from '../../src/kernels/prism-batch.js';
 import { prismGzFactor } from '../../src/kernels/prism.js';
 import { assertClose } from '../helpers/assert-close.js';
-import { makeUniform } from '../helpers/gauss-legendre.js';
+import { makeUniform } from '../helpers/seeded-random.js';
 
 describe('Neumaier accumulator', () => {
   it('recovers the small terms that plain summation drops: [1, 1e100, 1, -1e100] → 2', () => {

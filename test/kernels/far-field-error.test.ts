@@ -10,7 +10,8 @@ import {
 import { lineElementGzFactor, lineElementGauss2x2GzFactor } from '../../src/kernels/line-element.js';
 import { prismGzFactor } from '../../src/kernels/prism.js';
 import { assertClose } from '../helpers/assert-close.js';
-import { gaussLegendre, prismByQuadrature, makeUniform } from '../helpers/gauss-legendre.js';
+import { gaussLegendre, prismByQuadrature } from '../helpers/gauss-legendre.js';
+import { makeUniform } from '../helpers/seeded-random.js';
 
 // High-precision reference for distant cells: exact vertical integral, 8x8 Gauss-Legendre in
 // x and y. The integrand's nearest singularity is ≥ D - s/2 from the cell, so for D/s ≥ 10 the

@@ -5,18 +5,8 @@ import { reduceWithFormulas } from '../../src/legacy/formula-set.js';
 import { toIgsn71Mgal } from '../../src/legacy/gravity-datum.js';
 import type { NormalFormula } from '../../src/reduction/index.js';
 import { assertClose } from '../helpers/assert-close.js';
+import { mulberry32 as uniformSource } from '../helpers/seeded-random.js';
 
-/** Deterministic uniform numbers in [0, 1) (mulberry32), so the random set is the same every run. */
-function uniformSource(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const FORMULAS: NormalFormula[] = ['grs80', 'wgs84', 'wgs84-1987', 'igf1967', 'igf1967-short', 'igf1930'];
 

@@ -13,6 +13,7 @@ import {
   suspectHeightTypeMismatch,
 } from '../../src/legacy/height-type.js';
 import { assertClose } from '../helpers/assert-close.js';
+import { mulberry32 as uniformSource } from '../helpers/seeded-random.js';
 
 /** Synthetic projected geoid grid: 40 x 30 cells of 1 km, N = 25 + 2e-4 x - 1e-4 y m (linear). */
 const undulationAt = (x: number, y: number): number => 25 + 2e-4 * (x - 500000) - 1e-4 * (y - 4000000);
@@ -102,16 +103,6 @@ describe('height types', () => {
 });
 
 describe('suspected height type mismatch', () => {
-  function uniformSource(seed: number): () => number {
-    let a = seed >>> 0;
-    return () => {
-      a = (a + 0x6d2b79f5) >>> 0;
-      let t = a;
-      t = Math.imul(t ^ (t >>> 15), t | 1);
-      t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-      return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-    };
-  }
   const u = uniformSource(7);
   /** Approximately normal noise: sum of 12 uniforms minus 6 (unit variance). */
   const gauss = (): number => Array.from({ length: 12 }, u).reduce((a, b) => a + b, 0) - 6;
