@@ -27,7 +27,7 @@ export interface LegacySampleOptions {
   seed: number;
   /** Old vertical datum minus new, m: old heights are this much higher. */
   oldDatumOffsetM: number;
-  /** Station ids whose printed CBA gets an invented +1.00 mGal transcription error. */
+  /** Station ids whose printed CBA gets an invented +1.00 mGal copying error. */
   plantMismatchIds: readonly string[];
 }
 

@@ -103,7 +103,7 @@ describe('hammerSectorGzFactor', () => {
 
 describe('HAMMER_ZONES', () => {
   it('lists zones B..M with physics.md radii and compartments, radii increasing', () => {
-    // Transcription check against docs/physics.md §5 ([Hammer1939], radii converted from feet).
+    // The table checked against docs/physics.md §5 ([Hammer1939], radii converted from feet).
     const expected: Array<[string, number, number]> = [
       ['B', 16.6, 4], ['C', 53.3, 6], ['D', 170.1, 6], ['E', 390.1, 8], ['F', 894.9, 8], ['G', 1529.5, 12],
       ['H', 2614.6, 12], ['I', 4469.0, 12], ['J', 6652.6, 16], ['K', 9903.0, 16], ['L', 14741.7, 16], ['M', 21944.4, 16],

@@ -55,7 +55,7 @@ describe('invented legacy sample', () => {
     });
   });
 
-  it('reproduces under the declared formulas except the planted transcription error', () => {
+  it('reproduces under the declared formulas except the planted copying error', () => {
     const flagged = rows.filter((r) => {
       const c = checkLegacyAnomalies(
         {
