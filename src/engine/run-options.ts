@@ -7,6 +7,7 @@ import type { FormulaSet } from '../legacy/formula-set.js';
 import type { HeightType } from '../legacy/height-type.js';
 import type { LegacyTcRange } from '../legacy/legacy-tc-range.js';
 import type { LegacyColumnKey } from './legacy-columns.js';
+import type { ShardSpec } from './shard-spec.js';
 
 export interface ReduceOptions {
   stationsPath: string;
@@ -52,6 +53,8 @@ export interface ReduceOptions {
   demHeightType: HeightType;
   /** Geoid undulation grid (GeoTIFF, m) for converting between height types. */
   geoidPath?: string;
+  /** This machine's share of a cluster run (--shard K/N); absent = the whole run. */
+  shard?: ShardSpec;
   /** Draw a progress bar (when stderr is a terminal). */
   progress: boolean;
   /** The command line as typed, for the provenance record. */
@@ -70,6 +73,8 @@ export interface ReduceSummary {
   provenanceJson: string;
   qcText: string;
   warnings: string[];
+  /** Set on a share of a cluster run: its K/N and how many stations it wrote. */
+  shard?: { k: number; n: number; stations: number };
   /** The HTML report, when one was asked for. */
   reportHtml?: string;
 }

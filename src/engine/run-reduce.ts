@@ -15,7 +15,8 @@ import { makeTerrainContext } from '../terrain/station-terrain.js';
 import { writeFileAtomic } from '../io/atomic-file.js';
 import { resultsCsv, type OutputColumn } from '../io/results-csv.js';
 import { sha256File, type Provenance } from '../io/provenance.js';
-import { loadDem } from './load-dems.js';
+import { loadRunDems, readWindows, shareOf } from './shard-run.js';
+import { shardCsv } from './shard-csv.js';
 import { farWeights } from './far-mask.js';
 import { RESULT_WIDTH, sharedFloat64, type StationArrays } from './batch.js';
 import { runTerrain } from './pool.js';
@@ -75,11 +76,10 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
     active,
   );
   for (const i of heights.outsideGeoid) active[i] = 0;
-  const fine = await loadDem(o.demPaths, table, active, o.radiusM, { ...(o.demCrs ? { demCrs: o.demCrs } : {}), demUnits: o.demUnits }, 'DEM');
+  // a share (--shard K/N) computes the terrain of its stations only; everything else stays global
+  const { share, computeActive } = shareOf(o, table, active);
+  const { fine, far } = await loadRunDems(o, table, active, share);
   warnings.push(...fine.gaps.map((g) => `DEM mosaic gap: ${g}`));
-  const far = o.farDemPath
-    ? await loadDem([o.farDemPath], table, active, o.radiusM, { ...(o.farDemCrs ? { demCrs: o.farDemCrs } : {}), demUnits: o.farDemUnits }, 'far-zone DEM')
-    : null;
   const meanLat = meanOf(table.latDeg, active);
   const plan = planZones({
     radiusM: o.radiusM,
@@ -116,7 +116,7 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
   }
   stations.latDeg.set(table.latDeg);
   stations.heightM.set(heights.terrainM);
-  stations.active.set(active);
+  stations.active.set(computeActive);
   const results = sharedFloat64(n * RESULT_WIDTH);
   const tTerrain = performance.now();
   const progress = makeProgress(io, n, 'terrain', o.progress);
@@ -150,7 +150,7 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
     capRadiusM: o.capRadiusM,
     useInnerTc: o.fieldInnerRadiusM > 0,
   };
-  const rc = reductionColumns(settings, table, heights.reductionM, gravity.igsn71Mgal, results, active);
+  const rc = reductionColumns(settings, table, heights.reductionM, gravity.igsn71Mgal, results, computeActive);
   const { c, extra, zones, coverage, computed, kernelEvals } = rc;
   const scale = o.densityKgM3 / UNIT_DENSITY_KG_M3;
   const v = (oc: OutputColumn): Float64Array => oc.values as Float64Array;
@@ -175,7 +175,7 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
       newHeightM: heights.reductionM,
       newTcMgal: tcAdded,
       rangeTcMgal,
-      active,
+      active: computeActive,
     },
     v(c.cba),
     range ? range.plan : null,
@@ -188,7 +188,6 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
   }
   if (heights.outsideGeoid.length > 0)
     legacy.summaryLines.unshift(`${OUTSIDE_GEOID_FLAG}: ${heights.outsideGeoid.length} stations not covered by the geoid grid (not computed)`);
-  const qcText = [flags.summaryText, ...legacy.summaryLines].join('\n');
   const columns: OutputColumn[] = [
     ...gravity.columns,
     ...heights.columns,
@@ -200,7 +199,11 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
     coverage,
     ...legacy.columns,
   ];
-  const csv = resultsCsv(table.header, table.rows, columns, flags.perStation);
+  const sharded = share ? shardCsv(share, { table, columns, flags: flags.perStation, tcOutlierSlot: flags.tcOutlierSlot, tcMgal: v(c.tc), misfitM: v(c.misfit) }) : null;
+  const csv = sharded ? sharded.csv : resultsCsv(table.header, table.rows, columns, flags.perStation);
+  const qcText = sharded
+    ? `shard ${o.shard?.k}/${o.shard?.n}: ${sharded.stations} stations; tc_outlier and the QC summary come from talus merge`
+    : [flags.summaryText, ...legacy.summaryLines].join('\n');
   const provenancePath = `${o.outPath}.provenance.json`;
   const runTimeS = (performance.now() - t0) / 1000;
   const provenance: RunProvenance = {
@@ -214,7 +217,8 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
     heights: heights.record,
     legacy: legacy.record,
     stations: { file: o.stationsPath, sha256: await sha256File(o.stationsPath), rows: n },
-    dems: [...(await demProvenance('fine', fine, meanLat)), ...(far ? await demProvenance('far', far, meanLat) : [])],
+    ...(sharded && o.shard ? { shard: { k: o.shard.k, n: o.shard.n, stations: sharded.stations } } : {}),
+    dems: [...readWindows(await demProvenance('fine', fine, meanLat), fine), ...(far ? readWindows(await demProvenance('far', far, meanLat), far) : [])],
     zonePlan: { ...plan },
     runTimeS,
     stationCounts: { total: n, computed, flagged: flags.counts },
@@ -235,5 +239,6 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
     provenanceJson: provenancePath,
     qcText,
     warnings,
+    ...(sharded && o.shard ? { shard: { k: o.shard.k, n: o.shard.n, stations: sharded.stations } } : {}),
   };
 }

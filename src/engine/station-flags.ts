@@ -16,12 +16,14 @@ export interface RunFlags {
   perStation: string[][];
   counts: Record<string, number>;
   summaryText: string;
+  /** Where tc_outlier stands (or would stand) in each station's flags: the merge of a sharded run puts it there. */
+  tcOutlierSlot: Int32Array;
 }
 
 const TERRAIN_CODES = Object.entries(TERRAIN_FLAG) as [string, number][];
 
 /** Local metres (equirectangular about the mean position) for the neighbourhood checks. */
-function localMetres(lonDeg: Float64Array, latDeg: Float64Array): { x: Float64Array; y: Float64Array } {
+export function localMetres(lonDeg: Float64Array, latDeg: Float64Array): { x: Float64Array; y: Float64Array } {
   let lon0 = 0;
   let lat0 = 0;
   let k = 0;
@@ -49,7 +51,7 @@ export function stationFlags(
   results: Float64Array,
   tcMgal: Float64Array,
   misfitM: Float64Array,
-  o: Pick<ReduceOptions, 'misfitLimitM' | 'tcOutlierLimitMgal' | 'legacyTcLimitMgal' | 'keepGoing'>,
+  o: Pick<ReduceOptions, 'misfitLimitM' | 'tcOutlierLimitMgal' | 'legacyTcLimitMgal' | 'keepGoing' | 'shard'>,
 ): RunFlags {
   const n = table.ids.length;
   if (!o.keepGoing) {
@@ -76,14 +78,17 @@ export function stationFlags(
     if (Math.abs(m) > o.misfitLimitM) (per[i] as string[]).push('height_misfit');
   }
   const { x, y } = localMetres(table.lonDeg, table.latDeg);
-  const outliers = tcOutlierFlags(x, y, table.heightM, tcMgal, { limitMgal: o.tcOutlierLimitMgal });
+  // a share of a cluster run sees only its own TCs: tc_outlier is decided by the merge
+  const outliers = o.shard ? [] : tcOutlierFlags(x, y, table.heightM, tcMgal, { limitMgal: o.tcOutlierLimitMgal });
   const legacy = legacyTcChangeFlags(tcMgal, table.legacyTcMgal, o.legacyTcLimitMgal);
+  const tcOutlierSlot = new Int32Array(n);
   for (let i = 0; i < n; i++) {
+    tcOutlierSlot[i] = (per[i] as string[]).length;
     if (outliers[i]) (per[i] as string[]).push('tc_outlier');
     if (legacy[i]) (per[i] as string[]).push('legacy_tc_change');
   }
   const counts: Record<string, number> = {};
   for (const f of per) for (const code of f) counts[code] = (counts[code] ?? 0) + 1;
   const summary = qcSummary(per, table.ids, misfitM);
-  return { perStation: per, counts, summaryText: formatQcSummary(summary) };
+  return { perStation: per, counts, summaryText: formatQcSummary(summary), tcOutlierSlot };
 }

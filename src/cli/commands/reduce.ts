@@ -13,6 +13,7 @@ import { parseGobsOffset, parseGravityDatum, parseGravityUnit } from '../../lega
 import { LEGACY_MISMATCH_TOLERANCE_MGAL, parseLegacyFormulaSet, parseLegacyTolerance } from '../../legacy/legacy-reduction.js';
 import { parseHeightType } from '../../legacy/height-type.js';
 import { parseLegacyTcRange } from '../../legacy/legacy-tc-range.js';
+import { parseShard } from '../../engine/shard-spec.js';
 import {
   parseChoice,
   parseCount,
@@ -63,6 +64,7 @@ interface RawOptions {
   stationHeightType: string;
   demHeightType: string;
   geoid?: string;
+  shard?: string;
   json?: boolean;
   report?: string | boolean;
   progress: boolean;
@@ -116,6 +118,7 @@ export function reduceOptionsFrom(raw: RawOptions, commandLine: string[]): Reduc
     stationHeightType: parseHeightType(raw.stationHeightType, '--station-height-type'),
     demHeightType: parseHeightType(raw.demHeightType, '--dem-height-type'),
     ...(raw.geoid !== undefined ? { geoidPath: raw.geoid } : {}),
+    ...(raw.shard !== undefined ? { shard: parseShard(raw.shard) } : {}),
     progress: raw.progress,
     commandLine,
   };
@@ -123,7 +126,7 @@ export function reduceOptionsFrom(raw: RawOptions, commandLine: string[]): Reduc
 
 export function formatSummary(s: ReduceSummary): string {
   const lines = [
-    `talus reduce: ${s.computed} of ${s.stations} stations computed in ${s.runTimeS.toFixed(1)} s (terrain ${s.stationsPerS.toFixed(0)} stations/s)`,
+    `talus reduce: ${s.shard ? `shard ${s.shard.k}/${s.shard.n}: ` : ''}${s.computed} of ${s.shard ? s.shard.stations : s.stations} stations computed in ${s.runTimeS.toFixed(1)} s (terrain ${s.stationsPerS.toFixed(0)} stations/s)`,
     s.qcText,
     ...s.warnings.slice(0, 10).map((w) => `warning: ${w}`),
     ...(s.warnings.length > 10 ? [`warning: ... and ${s.warnings.length - 10} more (all in the provenance file)`] : []),
@@ -184,6 +187,7 @@ export function registerReduceCommand(program: Command, io: CliIo): void {
     .option('--station-height-type <type>', 'station heights are orthometric or ellipsoidal (the reduction uses them as declared)', 'orthometric')
     .option('--dem-height-type <type>', 'DEM heights (fine and far-zone) are orthometric or ellipsoidal', 'orthometric')
     .option('--geoid <N.tif>', 'geoid undulation grid (GeoTIFF, m, geoid above the ellipsoid) to convert between height types')
+    .option('--shard <K/N>', 'compute share K of N of the stations (one machine of a cluster); join the shares with talus merge')
     .option('--no-progress', 'do not draw the progress bar')
     .option('--json', 'print one JSON summary line at the end instead of the text summary')
     .option('--report [file.html]', 'also write the HTML report (default: <out> with .html)')
@@ -208,6 +212,13 @@ legacy_cba_mgal, datum_offset_mgal (mGal added to reach IGSN71; empty = the datu
 legacy_height_m (the height the old reduction used, in --height-units; gives delta_height_mgal), all
 mappable with --columns.
 
+Cluster example (one share per machine, then one merge; the shares must use the same parameters):
+  for K in 1 2 3 4; do talus reduce --stations s.csv --dem dem.tif --shard $K/4 --out part$K.csv; done
+  talus merge part1.csv part2.csv part3.csv part4.csv -o results.csv
+A share computes the stations of one block of the Hilbert-curve ordering of their lon/lat, cut in N
+blocks of equal count, and reads only the DEM around them; its CSV adds shard_* columns and leaves
+tc_outlier (which needs neighbours from every share) to talus merge.
+
 Legacy example:
   talus reduce --stations old.csv --columns height_m=ELEV_FT --height-units ft --gravity-datum potsdam \\
     --legacy-formulas normal=igf1930,free-air=first-order,bouguer=slab,density=2670,g=6.673e-11 \\
@@ -215,6 +226,9 @@ Legacy example:
     )
     .action(async (raw: RawOptions) => {
       const opts = reduceOptionsFrom(raw, ['talus', 'reduce', ...process.argv.slice(3)]);
+      if (opts.shard && raw.report !== undefined && raw.report !== false) {
+        throw new InputError(`option --report cannot be used with --shard ${raw.shard}: a share holds only part of the stations; run talus report on the merged results`);
+      }
       const controller = new AbortController();
       const onSigint = (): void => controller.abort();
       process.once('SIGINT', onSigint);
