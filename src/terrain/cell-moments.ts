@@ -78,12 +78,7 @@ export function level1Moments(pyr: Pyramid, row: number, col: number, out: Float
     }
   }
   if (!(wSum > 0)) {
-    out[o + MOM_WEIGHT] = 0;
-    out[o + MOM_MEAN] = NaN;
-    out[o + MOM_VARIANCE] = 0;
-    out[o + MOM_MOMENT3] = 0;
-    out[o + MOM_COV_COL] = 0;
-    out[o + MOM_COV_ROW] = 0;
+    writeEmptyMoments(out, o);
     return;
   }
   const mu = m1 / wSum;
@@ -165,12 +160,7 @@ export function combineCell(
     }
   }
   if (!(wSum > 0)) {
-    out[o + MOM_WEIGHT] = 0;
-    out[o + MOM_MEAN] = NaN;
-    out[o + MOM_VARIANCE] = 0;
-    out[o + MOM_MOMENT3] = 0;
-    out[o + MOM_COV_COL] = 0;
-    out[o + MOM_COV_ROW] = 0;
+    writeEmptyMoments(out, o);
     return;
   }
   const area = span(row, factor, nativeHeight) * span(col, factor, nativeWidth);
@@ -196,4 +186,14 @@ export function combineCell(
   // cov(H, x) = E[(H - mu) x] - E[H - mu] E[x]; E[H - mu] = 0 by construction
   out[o + MOM_COV_COL] = hx / wSum;
   out[o + MOM_COV_ROW] = hy / wSum;
+}
+
+/** The moments of a cell without data: weight 0, mean NaN, the rest 0. */
+function writeEmptyMoments(out: Float32Array, o: number): void {
+  out[o + MOM_WEIGHT] = 0;
+  out[o + MOM_MEAN] = NaN;
+  out[o + MOM_VARIANCE] = 0;
+  out[o + MOM_MOMENT3] = 0;
+  out[o + MOM_COV_COL] = 0;
+  out[o + MOM_COV_ROW] = 0;
 }
