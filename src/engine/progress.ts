@@ -36,3 +36,20 @@ export function makeProgress(io: CliIo, total: number, label: string, enabled: b
     },
   };
 }
+
+/**
+ * One-line notes of the stages before the terrain (reading DEMs, building pyramids), with the
+ * time each took, on a terminal only: a large DEM takes seconds to decode.
+ */
+export function makeStageNotes(io: CliIo, enabled: boolean): (what: string) => void {
+  if (!enabled || !io.stderr.isTTY) return () => {};
+  let t = performance.now();
+  let pending = '';
+  return (what: string) => {
+    const now = performance.now();
+    if (pending) io.stderr.write(` ${((now - t) / 1000).toFixed(1)} s\n`);
+    t = now;
+    pending = what;
+    if (what) io.stderr.write(`${what} ...`);
+  };
+}

@@ -20,7 +20,7 @@ import { shardCsv } from './shard-csv.js';
 import { farWeights } from './far-mask.js';
 import { RESULT_WIDTH, sharedFloat64, type StationArrays } from './batch.js';
 import { runTerrain } from './pool.js';
-import { makeProgress } from './progress.js';
+import { makeProgress, makeStageNotes } from './progress.js';
 import type { ReductionSettings } from './reduction-terms.js';
 import { stationFlags } from './station-flags.js';
 import type { ReduceOptions, ReduceSummary } from './run-options.js';
@@ -78,7 +78,10 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
   for (const i of heights.outsideGeoid) active[i] = 0;
   // a share (--shard K/N) computes the terrain of its stations only; everything else stays global
   const { share, computeActive } = shareOf(o, table, active);
+  const stage = makeStageNotes(io, o.progress);
+  stage(`reading ${o.demPaths.length > 1 ? `${o.demPaths.length} DEM tiles` : 'the DEM'}${o.farDemPath ? ' and the far-zone DEM' : ''}`);
   const { fine, far } = await loadRunDems(o, table, active, share);
+  stage('building the resolution pyramids');
   warnings.push(...fine.gaps.map((g) => `DEM mosaic gap: ${g}`));
   const meanLat = meanOf(table.latDeg, active);
   const plan = planZones({
@@ -97,6 +100,7 @@ export async function runReduce(o: ReduceOptions, io: CliIo, signal?: AbortSigna
     farSource = { grid: far.grid, pyramid: buildPyramid(far.grid, weights) };
   }
   const ctx = makeTerrainContext({ grid: fine.grid, pyramid: finePyramid }, farSource, plan);
+  stage('');
 
   const stations: StationArrays = {
     count: n,
