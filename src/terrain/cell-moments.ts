@@ -110,7 +110,9 @@ export function level1Moments(pyr: Pyramid, row: number, col: number, out: Float
 
 /**
  * Combines the (up to four) children of cell (row, col) of `level` (>= 2) into the moments
- * out[o ...]; the children's moments are `childMoments` (level - 1 >= 2) or level1Moments.
+ * out[o ...]. The children's moments are level1Moments (childMoments null, level 2) or
+ * `childMoments`: level - 1's moments for rows 2 * row and 2 * row + 1, one row of fine.width
+ * cells after the other (a strip; the second row is absent below the last row).
  */
 export function combineCell(
   pyr: Pyramid,
@@ -145,7 +147,7 @@ export function combineCell(
       const c = nk * MOM_STRIDE;
       if (childMoments === null) level1Moments(pyr, fr, fc, child, c);
       else {
-        const src = (fr * fine.width + fc) * MOM_STRIDE;
+        const src = (dr * fine.width + fc) * MOM_STRIDE;
         for (let j = 0; j < MOM_STRIDE; j++) child[c + j] = childMoments[src + j] as number;
       }
       const nc = span(fc, fine.factor, nativeWidth);

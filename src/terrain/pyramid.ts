@@ -20,7 +20,10 @@
  * centre in native cells), which depends only on the cell and not on the station; so the walk
  * spends no division or square root on it. The CELL_STRIDE values of a cell sit side by side in
  * one Float32Array per level (32 bytes, two cells per cache line). The moments themselves are
- * kept only while the next level is built. Level 0 stores nothing extra: its variance and
+ * kept for two rows per level only: the levels are built together in row strips, each row of
+ * level L+1 as soon as its two child rows of level L exist (rows 2r and 2r+1 sit in slots 0 and 1
+ * of level L's strip), so the build holds no whole level of moments beside the stored cells; every
+ * cell is combined with the same arithmetic as level by level. Level 0 stores nothing extra: its variance and
  * covariances are 0 and its weight is 1 where the height is not NaN (times the optional native
  * weight). Level 1 is not stored either: its moments are combined from its four native cells
  * when read (level1Moments), with the same arithmetic and float32 rounding as the build.
@@ -32,7 +35,7 @@ import type { DemGrid } from '../dem/grid.js';
 import { sharedFloat32 } from '../dem/grid.js';
 import type { TwoPoint } from './cell-effect.js';
 import { twoPointFromMoments } from './cell-effect.js';
-import { combineCell, makeCellScratch, MOM_COV_COL, MOM_COV_ROW, MOM_MEAN, MOM_MOMENT3, MOM_STRIDE, MOM_VARIANCE, MOM_WEIGHT, span } from './cell-moments.js';
+import { type CellScratch, combineCell, makeCellScratch, MOM_COV_COL, MOM_COV_ROW, MOM_MEAN, MOM_MOMENT3, MOM_STRIDE, MOM_VARIANCE, MOM_WEIGHT, span } from './cell-moments.js';
 
 /** Offsets of a stored cell's values in a level's `cells` array, and the floats per cell. */
 /** Fraction of the native footprint with data and in use, 0..1. */
@@ -89,40 +92,55 @@ export function buildPyramid(grid: DemGrid, nativeWeight?: Float32Array): Pyrami
     weight0 = nativeWeight;
     for (let i = 0; i < width * height; i++) if (Number.isNaN(data[i] as number)) weight0[i] = 0;
   }
-  const pyr: Pyramid = {
-    nativeWidth: width,
-    nativeHeight: height,
-    heights: data,
-    nativeWeight: weight0,
-    levels: [{ level: 0, factor: 1, width, height, cells: null }],
-  };
-  const scratch = makeCellScratch();
-  // moments of the previous level while the next one is built (null below level 2)
-  let prevMoments: Float32Array | null = null;
-  let prev = pyr.levels[0] as PyramidLevel;
-  while (prev.width > 1 || prev.height > 1) {
+  const levels: PyramidLevel[] = [{ level: 0, factor: 1, width, height, cells: null }];
+  for (let prev = levels[0] as PyramidLevel; prev.width > 1 || prev.height > 1; ) {
     const level = prev.level + 1;
     const w = Math.ceil(prev.width / 2);
     const h = Math.ceil(prev.height / 2);
-    const next: PyramidLevel = { level, factor: prev.factor * 2, width: w, height: h, cells: null };
-    if (level >= FIRST_STORED_LEVEL) {
-      const moments = new Float32Array(w * h * MOM_STRIDE);
-      const cells = sharedFloat32(w * h * CELL_STRIDE);
-      for (let row = 0; row < h; row++) {
-        const nr = span(row, next.factor, height);
-        for (let col = 0; col < w; col++) {
-          const i = row * w + col;
-          combineCell(pyr, level, row, col, prevMoments, moments, i * MOM_STRIDE, scratch);
-          storeTwoPoint(moments, i * MOM_STRIDE, span(col, next.factor, width), nr, cells, i * CELL_STRIDE, scratch.twoPoint);
-        }
-      }
-      next.cells = cells;
-      prevMoments = moments;
-    }
-    pyr.levels.push(next);
-    prev = next;
+    const cells = level >= FIRST_STORED_LEVEL ? sharedFloat32(w * h * CELL_STRIDE) : null;
+    prev = { level, factor: prev.factor * 2, width: w, height: h, cells };
+    levels.push(prev);
   }
+  const pyr: Pyramid = { nativeWidth: width, nativeHeight: height, heights: data, nativeWeight: weight0, levels };
+  if (levels.length > FIRST_STORED_LEVEL) buildStoredLevels(pyr);
   return pyr;
+}
+
+/**
+ * Fills the cells of levels FIRST_STORED_LEVEL and up, row by row: after row r of level L, row
+ * r >> 1 of level L+1 is built when both its child rows exist (r odd, or r the last row).
+ * strips[L] holds level L's moments for two rows, row r in slot r & 1.
+ */
+function buildStoredLevels(pyr: Pyramid): void {
+  const levels = pyr.levels;
+  const top = levels.length - 1;
+  const strips: (Float32Array | null)[] = levels.map((l) => (l.level >= FIRST_STORED_LEVEL ? new Float32Array(2 * l.width * MOM_STRIDE) : null));
+  const scratch = makeCellScratch();
+  const firstRows = (levels[FIRST_STORED_LEVEL] as PyramidLevel).height;
+  for (let firstRow = 0; firstRow < firstRows; firstRow++) {
+    let level = FIRST_STORED_LEVEL;
+    let row = firstRow;
+    for (;;) {
+      buildRow(pyr, level, row, strips[level - 1] ?? null, strips[level] as Float32Array, scratch);
+      if (level === top || ((row & 1) === 0 && row !== (levels[level] as PyramidLevel).height - 1)) break;
+      level++;
+      row >>= 1;
+    }
+  }
+}
+
+/** Row `row` of `level`: moments into slot row & 1 of `strip`, two-point form into the level's cells. */
+function buildRow(pyr: Pyramid, level: number, row: number, childStrip: Float32Array | null, strip: Float32Array, scratch: CellScratch): void {
+  const lv = pyr.levels[level] as PyramidLevel;
+  const cells = lv.cells as Float32Array;
+  const w = lv.width;
+  const nr = span(row, lv.factor, pyr.nativeHeight);
+  const slot = (row & 1) * w;
+  for (let col = 0; col < w; col++) {
+    const o = (slot + col) * MOM_STRIDE;
+    combineCell(pyr, level, row, col, childStrip, strip, o, scratch);
+    storeTwoPoint(strip, o, span(col, lv.factor, pyr.nativeWidth), nr, cells, (row * w + col) * CELL_STRIDE, scratch.twoPoint);
+  }
 }
 
 /** The two-point form of one cell's moments (nc x nr native cells) into cells[c ...]. */
