@@ -12,7 +12,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import proj4 from 'proj4';
 import { resolveCrs } from '../src/stations/crs-registry.js';
-import { gridFromFunction, type DemGrid } from '../src/dem/grid.js';
+import { gridFromFunction } from '../src/dem/grid.js';
 import { openDem } from '../src/dem/geotiff-open.js';
 import { readDemWindow } from '../src/dem/read-window.js';
 import { runReduce } from '../src/engine/run-reduce.js';
@@ -28,6 +28,7 @@ import { terrainHeightM, SURVEY_CENTRE_E_M, SURVEY_CENTRE_N_M } from './demo-ter
 import { bodyEffectMgal, gaussian, mulberry32, NOISE, PLANTED, plannedStations, trendMgal, TRUE_DENSITY_KG_M3 } from './demo-survey.js';
 import { writeCompressedGeoTiff } from './demo-geotiff.js';
 import { FAR_DEM, FINE_DEM } from './demo-grids.js';
+import { bilinearHeightAt } from '../src/terrain/grid-frame.js';
 
 const OUT = 'data-samples/demo';
 const utm = resolveCrs('EPSG:32633');
@@ -52,17 +53,6 @@ writeFileSync(`${OUT}/far-dem.gdalinfo.json`, farInfo);
 const back = await readDemWindow(await openDem(`${OUT}/fine-dem.tif`));
 for (let i = 0; i < fine.data.length; i++) if (back.data[i] !== fine.data[i]) throw new Error(`fine-dem.tif cell ${i} reads back ${back.data[i]}, wrote ${fine.data[i]}`);
 
-/** Bilinear height between cell centres (DemGrid convention), m. */
-function bilinear(g: DemGrid, x: number, y: number): number {
-  const fc = (x - g.originX) / g.cellSizeX - 0.5;
-  const fr = (g.originY - y) / g.cellSizeY - 0.5;
-  const c = Math.floor(fc);
-  const r = Math.floor(fr);
-  const tc = fc - c;
-  const tr = fr - r;
-  const at = (rr: number, cc: number): number => g.data[rr * g.width + cc] as number;
-  return (1 - tr) * ((1 - tc) * at(r, c) + tc * at(r, c + 1)) + tr * ((1 - tc) * at(r + 1, c) + tc * at(r + 1, c + 1));
-}
 
 // ---- stations
 const rand = mulberry32(20240917);
@@ -86,7 +76,7 @@ const stations: Station[] = planned.map((p) => {
   const latText = lat.toFixed(7);
   // the position as printed (1e-7 deg ~ 1 cm) is the position
   const [eM, nM] = toLonLat.inverse([Number(lonText), Number(latText)]) as [number, number];
-  const ground = bilinear(fine, eM, nM);
+  const ground = bilinearHeightAt(fine, eM, nM);
   const trueHeightM = ground + (p.id === PLANTED.tower.id ? PLANTED.tower.aboveGroundM : 0);
   let reportedHeightM = trueHeightM + NOISE.gpsHeightM * normal();
   if (p.id === PLANTED.blunderHigh.id) reportedHeightM += PLANTED.blunderHigh.offsetM;

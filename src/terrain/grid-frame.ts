@@ -123,3 +123,8 @@ export function bilinearHeight(grid: DemGrid, col: number, row: number): number 
   const d = data[r1 * width + c1] as number;
   return (a * (1 - tx) + b * tx) * (1 - ty) + (c * (1 - tx) + d * tx) * ty;
 }
+
+/** Bilinear height at (x, y) in the grid's CRS units (see bilinearHeight for the edges and nodata). */
+export function bilinearHeightAt(grid: DemGrid, x: number, y: number): number {
+  return bilinearHeight(grid, (x - grid.originX) / grid.cellSizeX - 0.5, (grid.originY - y) / grid.cellSizeY - 0.5);
+}

@@ -8,12 +8,12 @@ import { describe, expect, it } from 'vitest';
 import proj4 from 'proj4';
 import { openDem } from '../../src/dem/geotiff-open.js';
 import { readDemWindow } from '../../src/dem/read-window.js';
-import type { DemGrid } from '../../src/dem/grid.js';
 import { readCsvTable } from '../../src/io/read-results.js';
 import { CAP_RADIUS_M } from '../../src/constants.js';
 import { FAR_DEM, FINE_DEM } from '../../data-samples/demo-grids.js';
 import { NOISE, PLANTED } from '../../data-samples/demo-survey.js';
 import { assertClose } from '../helpers/assert-close.js';
+import { bilinearHeightAt } from '../../src/terrain/grid-frame.js';
 
 const DIR = new URL('../../data-samples/demo/', import.meta.url).pathname;
 const UTM33 = '+proj=utm +zone=33 +datum=WGS84 +units=m +no_defs';
@@ -27,17 +27,6 @@ interface GdalInfo {
 }
 const gdalinfo = (name: string): GdalInfo => JSON.parse(readFileSync(`${DIR}${name}.gdalinfo.json`, 'utf8')) as GdalInfo;
 
-/** Bilinear height between cell centres (DemGrid convention: row 0 north, pixel-is-area). */
-function bilinear(g: DemGrid, x: number, y: number): number {
-  const fc = (x - g.originX) / g.cellSizeX - 0.5;
-  const fr = (g.originY - y) / g.cellSizeY - 0.5;
-  const c = Math.floor(fc);
-  const r = Math.floor(fr);
-  const tc = fc - c;
-  const tr = fr - r;
-  const at = (rr: number, cc: number): number => g.data[rr * g.width + cc] as number;
-  return (1 - tr) * ((1 - tc) * at(r, c) + tc * at(r, c + 1)) + tr * ((1 - tc) * at(r + 1, c) + tc * at(r + 1, c + 1));
-}
 
 const table = readCsvTable(`${DIR}stations.csv`);
 const column = (name: string): string[] => {
@@ -143,7 +132,7 @@ describe('demo stations', () => {
     ]);
     const clean: number[] = [];
     for (let i = 0; i < ids.length; i++) {
-      const misfit = (heightM[i] as number) - bilinear(g, x[i] as number, y[i] as number);
+      const misfit = (heightM[i] as number) - bilinearHeightAt(g, x[i] as number, y[i] as number);
       const offset = planted.get(ids[i] as string) ?? 0;
       // 5 sd: for ~330 normal errors the chance that any exceeds it is about 2e-4; 0.005 m
       // covers x, y printed to 0.01 m on slopes below 25 deg
